@@ -1,0 +1,15 @@
+# Warning flags and sanitizers, applied per target.
+function(rotaweave_set_warnings target)
+  target_compile_options(${target} PRIVATE -Wall -Wextra -Wshadow -Wnon-virtual-dtor -pedantic)
+  if(CMAKE_CXX_COMPILER_ID STREQUAL "GNU")
+    # GCC 12 reports false -Wrestrict positives inside std::string concatenation.
+    target_compile_options(${target} PRIVATE -Wno-restrict)
+  endif()
+  if(ROTAWEAVE_WARNINGS_AS_ERRORS)
+    target_compile_options(${target} PRIVATE -Werror)
+  endif()
+  if(ROTAWEAVE_SANITIZE)
+    target_compile_options(${target} PRIVATE -fsanitize=${ROTAWEAVE_SANITIZE} -fno-omit-frame-pointer)
+    target_link_options(${target} PRIVATE -fsanitize=${ROTAWEAVE_SANITIZE})
+  endif()
+endfunction()

@@ -1,0 +1,17 @@
+/// @brief `check`: score a given roster and write the report.
+#include "app/commands.hpp"
+#include "app/pipeline.hpp"
+#include "io/roster_csv.hpp"
+#include "io/scenario_loader.hpp"
+
+namespace rotaweave::app {
+
+Outcome check(const std::string& scenario, const std::string& rosterPath, const std::filesystem::path& out) {
+  const model::Problem problem = io::loadScenario(scenario);
+  const model::Roster roster = io::readRosterCsv(rosterPath, problem);
+  report::RunInfo run;
+  run.command = "check";
+  return reportAndWrite(problem, roster, std::move(run), out);
+}
+
+}  // namespace rotaweave::app

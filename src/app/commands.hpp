@@ -1,0 +1,37 @@
+/// @brief The three use cases behind the CLI: check, solve and replan.
+///
+/// Each loads and validates all input first, so bad input writes nothing, then computes,
+/// then writes every output atomically. Errors are thrown (io::InputError, io::OutputError).
+#pragma once
+#include <filesystem>
+#include <string>
+#include <vector>
+
+#include "report/report.hpp"
+#include "search/solver_options.hpp"
+
+namespace rotaweave::app {
+
+struct Outcome {
+  report::Report report;
+  int exitCode = 0;  ///< 0: no hard breach; 1: hard breaches remain.
+};
+
+Outcome check(const std::string& scenario, const std::string& roster, const std::filesystem::path& out);
+
+struct SolveRequest {
+  std::string scenario;
+  std::filesystem::path out = "out";
+  search::SolverOptions options;
+};
+Outcome solve(const SolveRequest& request);
+
+struct ReplanRequest {
+  SolveRequest solve;
+  std::string publishedRoster;
+  std::string from;                   ///< YYYY-MM-DD
+  std::vector<std::string> absences;  ///< STAFF:DATE or STAFF:DATE..DATE
+};
+Outcome replan(const ReplanRequest& request);
+
+}  // namespace rotaweave::app

@@ -1,0 +1,20 @@
+/// @brief Explain, report, write.
+#include "app/pipeline.hpp"
+
+#include "eval/evaluator.hpp"
+#include "io/output_writer.hpp"
+
+namespace rotaweave::app {
+
+Outcome reportAndWrite(const model::Problem& problem, const model::Roster& roster, report::RunInfo run,
+                       const std::filesystem::path& out) {
+  const rules::RuleSet ruleSet(problem);
+  eval::Evaluator evaluator(ruleSet);
+  Outcome outcome;
+  outcome.report = report::buildReport(problem, roster, evaluator.explain(roster), std::move(run));
+  io::writeStandardOutputs(out, io::OutputBundle{problem, roster, outcome.report});
+  outcome.exitCode = outcome.report.hardCount > 0 ? 1 : 0;
+  return outcome;
+}
+
+}  // namespace rotaweave::app

@@ -1,0 +1,27 @@
+/// @brief Command-line parsing (Boost.ProgramOptions) into plain requests for app/.
+#pragma once
+#include <string>
+#include <variant>
+#include <vector>
+
+#include "app/commands.hpp"
+
+namespace rotaweave::cli {
+
+struct CheckArgs {
+  std::string scenario, roster, out = "out";
+};
+struct HelpArgs {
+  std::string text;
+};
+
+using Parsed = std::variant<HelpArgs, CheckArgs, app::SolveRequest, app::ReplanRequest>;
+
+/// Throws UsageError on bad usage.
+Parsed parseCommandLine(int argc, char** argv);
+
+struct UsageError : std::runtime_error {
+  using std::runtime_error::runtime_error;
+};
+
+}  // namespace rotaweave::cli

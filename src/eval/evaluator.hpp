@@ -1,0 +1,78 @@
+/// @brief Full and incremental evaluation of rosters against a RuleSet.
+///
+/// Full evaluation scores a whole roster. Incremental evaluation keeps a loaded roster with
+/// cached per-person row tallies, per (day, task) cover counts and fair-share counts, so that
+/// tryMove() re-scores only the rows and cover cells a move touches.
+/// Thread safety: an Evaluator holds mutable scratch; give each thread (island) its own copy.
+/// The Problem and RuleSet it refers to are shared read-only.
+#pragma once
+#include <vector>
+
+#include "eval/move.hpp"
+#include "model/roster.hpp"
+#include "rules/rule_set.hpp"
+
+namespace rotaweave::eval {
+
+using rules::Tally;
+
+class Evaluator {
+ public:
+  explicit Evaluator(const rules::RuleSet& rules);
+
+  /// Penalty of a whole roster. Does not touch the loaded state. No allocation after warm-up.
+  Tally score(const model::Roster& roster);
+  /// Every breach of a roster, rows first (by person), then cover (by day), then fair share.
+  std::vector<rules::Breach> explain(const model::Roster& roster);
+
+  // Incremental interface.
+  void load(const model::Roster& roster);
+  const model::Roster& roster() const { return roster_; }
+  Tally total() const { return total_; }
+  /// Total after the move, leaving the loaded roster unchanged. Cells must be distinct.
+  Tally tryMove(const Move& move);
+  /// Applies the move last passed to tryMove().
+  void commit();
+
+  const rules::RuleSet& rules() const { return *rules_; }
+
+ private:
+  /// Fills the shift buffer for person s from `tasks` and returns the row view.
+  rules::RowView view(StaffIdx s, const TaskIdx* tasks);
+  Tally rowTally(const rules::RowView& row, std::vector<rules::Breach>* out) const;
+  Tally fairTally(size_t rule, const int* counts, long sum) const;
+  void countCover(const model::Roster& roster, std::vector<int>& counts) const;
+
+  const rules::RuleSet* rules_;
+  const model::Problem* p_;
+  int days_, tasks_, history_;
+  std::vector<ShiftIdx> taskShift_;  ///< shift of each task, kNoShift for off
+  std::vector<ShiftIdx> shiftBuf_;   ///< history + days
+  std::vector<int> coverScratch_;
+  std::vector<int> fairScratch_;
+
+  // Loaded state.
+  model::Roster roster_;
+  std::vector<Tally> rowTally_;
+  std::vector<int> coverCount_;                 ///< [day * tasks + task]
+  std::vector<std::vector<int>> fairCount_;     ///< per fair-share rule, per member
+  std::vector<long> fairSum_;
+  std::vector<Tally> fairTally_;
+  Tally coverTotal_, total_;
+
+  // Pending move (from tryMove).
+  Move pending_;
+  struct PendingRow { StaffIdx staff; Tally tally; };
+  std::array<PendingRow, Move::kCapacity> pendingRows_{};
+  int pendingRowCount_ = 0;
+  std::vector<TaskIdx> rowScratch_;  ///< up to kCapacity rows of days each
+  struct PendingFair { int member; int count; };
+  std::vector<std::array<PendingFair, Move::kCapacity>> pendingFair_;
+  std::vector<int> pendingFairCount_;
+  std::vector<Tally> pendingFairTally_;
+  std::vector<long> pendingFairSum_;
+  Tally pendingCover_;
+  Tally pendingTotal_;
+};
+
+}  // namespace rotaweave::eval

@@ -1,0 +1,48 @@
+/// @brief The standard output set and the plain-text writers (CSV, JSON, text report).
+#include "io/output_writer.hpp"
+
+#include "io/atomic_file.hpp"
+#include "io/report_json.hpp"
+#include "io/roster_csv.hpp"
+#include "report/text.hpp"
+
+namespace rotaweave::io {
+namespace {
+
+class CsvWriter final : public OutputWriter {
+ public:
+  void write(const std::filesystem::path& dir, const OutputBundle& b) const override {
+    writeFileAtomic(dir / "roster.csv", rosterCsvText(b.roster, b.problem));
+  }
+};
+
+class JsonWriter final : public OutputWriter {
+ public:
+  void write(const std::filesystem::path& dir, const OutputBundle& b) const override {
+    writeFileAtomic(dir / "report.json", reportJson(b.report, b.problem));
+  }
+};
+
+class TextWriter final : public OutputWriter {
+ public:
+  void write(const std::filesystem::path& dir, const OutputBundle& b) const override {
+    writeFileAtomic(dir / "report.txt", report::renderText(b.report, b.problem));
+  }
+};
+
+}  // namespace
+
+std::vector<std::unique_ptr<OutputWriter>> standardWriters() {
+  std::vector<std::unique_ptr<OutputWriter>> writers;
+  writers.push_back(std::make_unique<CsvWriter>());
+  writers.push_back(std::make_unique<JsonWriter>());
+  writers.push_back(std::make_unique<TextWriter>());
+  return writers;
+}
+
+void writeStandardOutputs(const std::filesystem::path& dir, const OutputBundle& bundle) {
+  ensureDirectory(dir);
+  for (const auto& writer : standardWriters()) writer->write(dir, bundle);
+}
+
+}  // namespace rotaweave::io

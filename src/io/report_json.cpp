@@ -1,0 +1,66 @@
+/// @brief JSON rendering of the report value.
+#include "io/report_json.hpp"
+
+#include <cstdio>
+#include <sstream>
+
+namespace rotaweave::io {
+
+std::string jsonString(const std::string& s) {
+  std::string out = "\"";
+  for (unsigned char c : s) {
+    switch (c) {
+      case '"': out += "\\\""; break;
+      case '\\': out += "\\\\"; break;
+      case '\n': out += "\\n"; break;
+      case '\r': out += "\\r"; break;
+      case '\t': out += "\\t"; break;
+      default:
+        if (c < 0x20) {
+          char buf[8];
+          std::snprintf(buf, sizeof buf, "\\u%04x", c);
+          out += buf;
+        } else {
+          out += static_cast<char>(c);
+        }
+    }
+  }
+  return out + "\"";
+}
+
+std::string reportJson(const report::Report& r, const model::Problem& p) {
+  using report::amountText;
+  using report::pointsText;
+  std::ostringstream out;
+  out << "{\n  \"scenario\": " << jsonString(p.name) << ",\n"
+      << "  \"period\": {\"start\": \"" << p.dateText(0) << "\", \"end\": \"" << p.dateText(p.days - 1) << "\"},\n"
+      << "  \"summary\": {\"hard\": " << pointsText(r.total.hard) << ", \"soft\": " << pointsText(r.total.soft)
+      << ", \"violations\": " << r.breaches.size() << ", \"hard_violations\": " << r.hardCount
+      << ", \"soft_violations\": " << r.breaches.size() - static_cast<size_t>(r.hardCount) << "},\n";
+  out << "  \"run\": {\"command\": " << jsonString(r.run.command) << ", \"seed\": " << r.run.seed << ", \"islands\": " << r.run.islands
+      << ", \"threads\": " << r.run.threads << ", \"generations\": " << r.run.generations << ", \"seconds\": " << r.run.seconds
+      << ", \"stop\": " << jsonString(r.run.stopReason) << "},\n";
+  out << "  \"by_rule\": [";
+  for (size_t i = 0; i < r.byRule.size(); ++i) {
+    const auto& s = r.byRule[i];
+    out << (i ? ",\n    " : "\n    ") << "{\"rule\": " << jsonString(s.ruleId) << ", \"kind\": " << jsonString(s.kind)
+        << ", \"severity\": \"" << (s.hard ? "hard" : "soft") << "\", \"count\": " << s.count << ", \"amount\": " << amountText(s.amount)
+        << ", \"penalty\": " << pointsText(s.penalty) << "}";
+  }
+  out << (r.byRule.empty() ? "],\n" : "\n  ],\n");
+  out << "  \"violations\": [";
+  for (size_t i = 0; i < r.breaches.size(); ++i) {
+    const auto& b = r.breaches[i];
+    out << (i ? ",\n    " : "\n    ") << "{\"rule\": " << jsonString(b.ruleId) << ", \"kind\": " << jsonString(b.kind)
+        << ", \"severity\": \"" << (b.hard ? "hard" : "soft") << "\", \"staff\": "
+        << (b.staff >= 0 ? jsonString(p.staff[static_cast<size_t>(b.staff)].id) : std::string("null")) << ", \"dates\": [";
+    for (size_t k = 0; k < b.days.size(); ++k) out << (k ? ", " : "") << "\"" << p.dateText(b.days[k]) << "\"";
+    out << "], \"amount\": " << amountText(b.amount) << ", \"penalty\": " << pointsText(b.penalty)
+        << ", \"message\": " << jsonString(b.message) << "}";
+  }
+  out << (r.breaches.empty() ? "],\n" : "\n  ],\n");
+  out << "  \"caution\": " << jsonString(report::cautionText()) << "\n}\n";
+  return out.str();
+}
+
+}  // namespace rotaweave::io

@@ -1,0 +1,63 @@
+/// @brief The report value: every breach of a roster with summaries, built once and
+/// rendered by every output format (text, JSON, workbook), so they always agree.
+#pragma once
+#include <cstdint>
+#include <string>
+#include <vector>
+
+#include "model/problem.hpp"
+#include "model/roster.hpp"
+#include "rules/breach.hpp"
+
+namespace rotaweave::report {
+
+/// How the roster was made; shown in the report and the workbook.
+struct RunInfo {
+  std::string command = "check";   ///< check, solve or replan
+  std::uint64_t seed = 0;
+  int islands = 0;
+  int threads = 0;
+  long generations = 0;
+  double seconds = 0;
+  std::string stopReason;          ///< e.g. "time limit", "generation limit", "interrupted"
+  std::vector<std::pair<double, rules::Tally>> progress;  ///< (seconds, best) over the run
+};
+
+struct RuleSummary {
+  std::string ruleId, kind;
+  bool hard = true;
+  int count = 0;
+  Cost amount = 0, penalty = 0;
+};
+
+struct PersonSummary {
+  StaffIdx staff = 0;
+  int hardCount = 0, softCount = 0;
+  Cost hard = 0, soft = 0;
+  int paidMinutes = 0;
+  int shiftsWorked = 0;
+  std::vector<int> shiftsByType;  ///< per shift type
+  int weekendsWorked = 0;
+};
+
+struct Report {
+  rules::Tally total;
+  int hardCount = 0;                   ///< Number of hard breach records.
+  std::vector<rules::Breach> breaches; ///< Hard first, then by rule, person and first date.
+  std::vector<RuleSummary> byRule;
+  std::vector<PersonSummary> byPerson; ///< One per person, in staff order.
+  RunInfo run;
+};
+
+Report buildReport(const model::Problem& problem, const model::Roster& roster, std::vector<rules::Breach> breaches,
+                   RunInfo run);
+
+/// The caution every report ends with.
+const char* cautionText();
+
+/// Penalty points as text: "12", "3.5", "0.25".
+std::string pointsText(Cost cost);
+/// An amount as text, in its rule's unit: "2", "1.5".
+std::string amountText(Cost amount);
+
+}  // namespace rotaweave::report

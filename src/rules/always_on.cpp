@@ -1,0 +1,87 @@
+/// @brief Rules that always apply: skills, absences, fixed cells, requests, and re-plan changes.
+#include <string>
+
+#include "rules/row_rules.hpp"
+
+namespace rotaweave::rules {
+namespace {
+
+std::string cellText(const RowView& row, TaskIdx t) {
+  return t == kOff ? std::string("off") : row.problem->taskText(t, row.staff);
+}
+
+}  // namespace
+
+void SkillRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+  const auto& p = *row.problem;
+  const auto& person = p.staff[static_cast<size_t>(row.staff)];
+  for (DayIdx d = 0; d < row.days; ++d) {
+    const TaskIdx t = row.tasks[d];
+    if (t == kOff) continue;
+    const SkillIdx skill = p.tasks[static_cast<size_t>(t)].skill;
+    if (person.holds(skill)) continue;
+    charge(row, tally, out, kOne, {d, d}, [&] {
+      return row.personId() + ": works " + row.shiftId(d) + " as " + p.skills[static_cast<size_t>(skill)] +
+             " on " + row.date(d) + " but does not hold that skill";
+    });
+  }
+}
+
+void AbsenceRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+  const auto& p = *row.problem;
+  for (DayIdx d = 0; d < row.days; ++d) {
+    if (!row.worked(d) || !p.absent[p.cell(row.staff, d)]) continue;
+    charge(row, tally, out, kOne, {d, d}, [&] {
+      const std::string& reason = p.absenceReason[p.cell(row.staff, d)];
+      return row.personId() + ": works " + row.shiftId(d) + " on " + row.date(d) + ", a day of absence" +
+             (reason.empty() ? std::string() : " (" + reason + ")");
+    });
+  }
+}
+
+void FixedRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+  const auto& p = *row.problem;
+  for (DayIdx d = 0; d < row.days; ++d) {
+    const TaskIdx want = p.fixed[p.cell(row.staff, d)];
+    if (want < 0 || want == row.tasks[d]) continue;
+    charge(row, tally, out, kOne, {d, d}, [&] {
+      return row.personId() + ": fixed to " + cellText(row, want) + " on " + row.date(d) + " but the roster has " +
+             cellText(row, row.tasks[d]);
+    });
+  }
+}
+
+void RequestRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+  const auto& p = *row.problem;
+  for (const auto& r : p.staff[static_cast<size_t>(row.staff)].requests) {
+    const DayIdx d = r.day;
+    const ShiftIdx has = row.shift(d);
+    using K = model::Request::Kind;
+    const bool broken = r.kind == K::Off ? has != kNoShift : r.kind == K::Shift ? has != r.shift : has == r.shift;
+    if (!broken) continue;
+    charge(row, tally, out, kOne, {d, d}, [&] {
+      const std::string got = has == kNoShift ? std::string("is off") : "works " + row.shiftId(d);
+      const std::string wanted = r.kind == K::Off     ? "asked for " + row.date(d) + " off"
+                                 : r.kind == K::Shift ? "asked for " + p.shifts[static_cast<size_t>(r.shift)].id + " on " + row.date(d)
+                                                      : "asked not to work " + p.shifts[static_cast<size_t>(r.shift)].id + " on " + row.date(d);
+      return row.personId() + ": " + wanted + " but " + got;
+    }, r.weight);
+  }
+}
+
+void ChangesRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+  const auto& p = *row.problem;
+  if (!p.published) return;
+  const auto& published = *p.published;
+  for (DayIdx d = published.from; d < row.days; ++d) {
+    const TaskIdx was = published.cells[p.cell(row.staff, d)];
+    if (was == row.tasks[d]) continue;
+    const bool early = d < published.from + spec().earlyDays;
+    charge(row, tally, out, kOne, {d, d}, [&] {
+      return row.personId() + ": " + row.date(d) + " changed from " + cellText(row, was) + " to " +
+             cellText(row, row.tasks[d]) + (early ? " at short notice" : "");
+    }, early ? spec().earlyWeight : spec().weight);
+  }
+}
+
+}  // namespace rotaweave::rules

@@ -1,0 +1,36 @@
+/// @brief One rule breach, as found by a rule and shown in every report format.
+#pragma once
+#include <string>
+#include <vector>
+
+#include "model/types.hpp"
+
+namespace rotaweave::rules {
+
+struct Breach {
+  std::string ruleId;
+  std::string kind;
+  bool hard = true;
+  StaffIdx staff = -1;          ///< -1 when the breach belongs to no single person.
+  std::vector<DayIdx> days;     ///< Period days involved, ascending.
+  Cost amount = 0;              ///< In 1/kAmountScale units.
+  Cost penalty = 0;             ///< In 1/kCostScale units.
+  std::string message;
+};
+
+/// Hard and soft penalty totals, in 1/kCostScale units. Lower is better, hard first.
+struct Tally {
+  Cost hard = 0;
+  Cost soft = 0;
+  Tally& operator+=(const Tally& o) { hard += o.hard; soft += o.soft; return *this; }
+  Tally& operator-=(const Tally& o) { hard -= o.hard; soft -= o.soft; return *this; }
+  friend Tally operator+(Tally a, const Tally& b) { return a += b; }
+  friend Tally operator-(Tally a, const Tally& b) { return a -= b; }
+  friend bool operator==(const Tally&, const Tally&) = default;
+  /// Lexicographic: fewer hard penalty points first, then fewer soft.
+  friend bool operator<(const Tally& a, const Tally& b) {
+    return a.hard != b.hard ? a.hard < b.hard : a.soft < b.soft;
+  }
+};
+
+}  // namespace rotaweave::rules

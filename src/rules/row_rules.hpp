@@ -1,0 +1,66 @@
+/// @brief Declarations of every row rule kind (one class per kind).
+///
+/// Each class judges one person's row (history included) and is registered in registry.cpp.
+/// Amount units and edge cases are documented per kind in docs/rules/.
+#pragma once
+#include "rules/row_rule.hpp"
+
+namespace rotaweave::rules {
+
+#define ROTAWEAVE_ROW_RULE(Name)                                                          \
+  class Name final : public RowRule {                                                     \
+   public:                                                                                \
+    using RowRule::RowRule;                                                               \
+    void score(const RowView& row, Tally& tally, std::vector<Breach>* out) const override; \
+  }
+
+// Always on (always_on.cpp).
+ROTAWEAVE_ROW_RULE(SkillRule);
+ROTAWEAVE_ROW_RULE(AbsenceRule);
+ROTAWEAVE_ROW_RULE(FixedRule);
+ROTAWEAVE_ROW_RULE(RequestRule);
+ROTAWEAVE_ROW_RULE(ChangesRule);
+// Shift-to-shift transitions (sequence_rules.cpp).
+ROTAWEAVE_ROW_RULE(MinRestRule);
+ROTAWEAVE_ROW_RULE(ForbidSequenceRule);
+// Runs of days (run_rules.cpp).
+ROTAWEAVE_ROW_RULE(MinConsecutiveDaysRule);
+ROTAWEAVE_ROW_RULE(MaxConsecutiveDaysRule);
+ROTAWEAVE_ROW_RULE(MinConsecutiveRule);
+ROTAWEAVE_ROW_RULE(MaxConsecutiveRule);
+ROTAWEAVE_ROW_RULE(MinConsecutiveOffRule);
+ROTAWEAVE_ROW_RULE(DaysOffAfterRule);
+// Totals over the period or a window (total_rules.cpp).
+ROTAWEAVE_ROW_RULE(MinHoursRule);
+ROTAWEAVE_ROW_RULE(MaxHoursRule);
+ROTAWEAVE_ROW_RULE(MinCountRule);
+ROTAWEAVE_ROW_RULE(MaxCountRule);
+// Weekends and weekly rest (weekend_rules.cpp).
+ROTAWEAVE_ROW_RULE(MaxWeekendsRule);
+ROTAWEAVE_ROW_RULE(CompleteWeekendsRule);
+ROTAWEAVE_ROW_RULE(WeeklyRestRule);
+
+#undef ROTAWEAVE_ROW_RULE
+
+/// Number of weekends in the period on which the row has any shift (shared with fair-share).
+int weekendsWorked(const RowView& row);
+
+/// Calls onRun(first, last, touchesFirstKnownDay, touchesPeriodEnd) for every maximal run of
+/// days where inRun(d) holds, over history and period; runs wholly in history are skipped.
+template <class InRun, class OnRun>
+void forEachRun(const RowView& row, InRun&& inRun, OnRun&& onRun) {
+  const DayIdx firstKnown = -row.history;
+  const DayIdx last = row.days - 1;
+  DayIdx d = firstKnown;
+  while (d <= last) {
+    if (!inRun(d)) {
+      ++d;
+      continue;
+    }
+    const DayIdx start = d;
+    while (d <= last && inRun(d)) ++d;
+    if (d - 1 >= 0) onRun(start, d - 1, start == firstKnown, d - 1 == last);
+  }
+}
+
+}  // namespace rotaweave::rules

@@ -1,0 +1,97 @@
+/// @brief Run-length rules: consecutive worked days, consecutive shifts, days off, recovery.
+#include <string>
+
+#include "rules/row_rules.hpp"
+
+namespace rotaweave::rules {
+namespace {
+
+std::string runText(const RowView& row, DayIdx first, DayIdx last) {
+  const int len = last - first + 1;
+  return std::to_string(len) + (len == 1 ? " day" : " days") + " from " + row.date(first) + " to " + row.date(last);
+}
+
+std::string shiftName(const RowView& row, ShiftIdx s) {
+  return row.problem->shifts[static_cast<size_t>(s)].id;
+}
+
+}  // namespace
+
+void MaxConsecutiveDaysRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+  const int bound = spec().count;
+  forEachRun(row, [&](DayIdx d) { return row.worked(d); }, [&](DayIdx a, DayIdx b, bool, bool) {
+    const int len = b - a + 1;
+    if (len <= bound) return;
+    charge(row, tally, out, (len - bound) * kOne, {a, b}, [&] {
+      return row.personId() + ": works " + runText(row, a, b) + " in a row; at most " + std::to_string(bound) + " allowed";
+    });
+  });
+}
+
+void MinConsecutiveDaysRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+  const int bound = spec().count;
+  forEachRun(row, [&](DayIdx d) { return row.worked(d); }, [&](DayIdx a, DayIdx b, bool atStart, bool atEnd) {
+    const int len = b - a + 1;
+    if (len >= bound || atStart || atEnd) return;  // a run cut by the edge of what we know may go on
+    charge(row, tally, out, (bound - len) * kOne, {a, b}, [&] {
+      return row.personId() + ": works only " + runText(row, a, b) + " in a row; at least " + std::to_string(bound) + " needed";
+    });
+  });
+}
+
+void MaxConsecutiveRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+  const int bound = spec().count;
+  const ShiftIdx s = spec().shift;
+  forEachRun(row, [&](DayIdx d) { return row.shift(d) == s; }, [&](DayIdx a, DayIdx b, bool, bool) {
+    const int len = b - a + 1;
+    if (len <= bound) return;
+    charge(row, tally, out, (len - bound) * kOne, {a, b}, [&] {
+      return row.personId() + ": " + std::to_string(len) + " " + shiftName(row, s) + " shifts in a row from " +
+             row.date(a) + " to " + row.date(b) + "; at most " + std::to_string(bound) + " allowed";
+    });
+  });
+}
+
+void MinConsecutiveRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+  const int bound = spec().count;
+  const ShiftIdx s = spec().shift;
+  forEachRun(row, [&](DayIdx d) { return row.shift(d) == s; }, [&](DayIdx a, DayIdx b, bool atStart, bool atEnd) {
+    const int len = b - a + 1;
+    if (len >= bound || atStart || atEnd) return;
+    charge(row, tally, out, (bound - len) * kOne, {a, b}, [&] {
+      return row.personId() + ": only " + std::to_string(len) + " " + shiftName(row, s) + " in a row from " +
+             row.date(a) + " to " + row.date(b) + "; at least " + std::to_string(bound) + " needed";
+    });
+  });
+}
+
+void MinConsecutiveOffRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+  const int bound = spec().count;
+  forEachRun(row, [&](DayIdx d) { return !row.worked(d); }, [&](DayIdx a, DayIdx b, bool atStart, bool atEnd) {
+    const int len = b - a + 1;
+    if (len >= bound || atStart || atEnd) return;
+    charge(row, tally, out, (bound - len) * kOne, {a, b}, [&] {
+      return row.personId() + ": only " + runText(row, a, b) + " off in a row; at least " + std::to_string(bound) + " needed";
+    });
+  });
+}
+
+void DaysOffAfterRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+  const int need = spec().count;
+  const ShiftIdx s = spec().shift;
+  for (DayIdx b = -row.history; b < row.days - 1; ++b) {
+    if (row.shift(b) != s || row.shift(b + 1) == s) continue;  // b ends a series of s
+    DayIdx next = b + 1;
+    while (next < row.days && !row.worked(next) && next - b - 1 < need) ++next;
+    const int off = next - b - 1;
+    // Judged only when the next worked day is inside the period: later days are unknown.
+    if (off >= need || next >= row.days || next < 0) continue;
+    charge(row, tally, out, (need - off) * kOne, {b, next}, [&] {
+      return row.personId() + ": " + std::to_string(off) + (off == 1 ? " day" : " days") + " off after the " +
+             shiftName(row, s) + " series ending " + row.date(b) + " before " + row.shiftId(next) + " on " +
+             row.date(next) + "; " + std::to_string(need) + " needed";
+    });
+  }
+}
+
+}  // namespace rotaweave::rules

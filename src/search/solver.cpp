@@ -1,0 +1,124 @@
+/// @brief Archipelago loop: epochs, ring migration, stopping rules.
+#include "search/solver.hpp"
+
+#include <algorithm>
+#include <atomic>
+#include <chrono>
+#include <memory>
+
+#ifdef _OPENMP
+#include <omp.h>
+#endif
+
+#include "search/eligibility.hpp"
+#include "search/island.hpp"
+#include "search/stop_signal.hpp"
+
+namespace rotaweave::search {
+namespace {
+
+using Clock = std::chrono::steady_clock;
+
+int resolveThreads(int requested, int islands) {
+  int cores = 1;
+#ifdef _OPENMP
+  cores = omp_get_num_procs();
+#endif
+  const int t = requested > 0 ? requested : cores;
+  return std::max(1, std::min(t, islands));
+}
+
+std::uint64_t resolveSeed(std::uint64_t seed) {
+  if (seed != 0) return seed;
+  auto now = static_cast<std::uint64_t>(Clock::now().time_since_epoch().count());
+  return splitmix64(now) % 1000000000ULL + 1;  // short enough to retype
+}
+
+}  // namespace
+
+SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, const std::vector<model::Roster>& seeds,
+                  const ProgressSink& onProgress) {
+  const auto started = Clock::now();
+  auto elapsed = [&] { return std::chrono::duration<double>(Clock::now() - started).count(); };
+
+  SolveResult result;
+  result.seed = resolveSeed(options.seed);
+  result.islands = std::max(1, options.islands);
+  result.threads = resolveThreads(options.threads, result.islands);
+
+  const Eligibility eligibility(rules.problem());
+  std::vector<std::unique_ptr<Island>> islands;
+  std::uint64_t seedState = result.seed;
+  for (int i = 0; i < result.islands; ++i)
+    islands.push_back(std::make_unique<Island>(rules, eligibility, options, splitmix64(seedState)));
+
+  std::atomic<bool> outOfTime{false};
+  auto stopNow = [&] {
+    if (stopRequested()) return true;
+    if (elapsed() >= options.timeLimit) outOfTime = true;
+    return outOfTime.load();
+  };
+
+  // 1 - Initial populations, one island per thread.
+#pragma omp parallel for num_threads(result.threads) schedule(dynamic, 1)
+  for (int i = 0; i < result.islands; ++i) islands[static_cast<size_t>(i)]->initialize(seeds);
+
+  auto bestIsland = [&] {
+    int best = 0;
+    for (int i = 1; i < result.islands; ++i)
+      if (islands[static_cast<size_t>(i)]->best().score < islands[static_cast<size_t>(best)]->best().score) best = i;
+    return best;
+  };
+  rules::Tally best = islands[static_cast<size_t>(bestIsland())]->best().score;
+  result.history.emplace_back(elapsed(), best);
+  long generation = 0, lastImprovement = 0;
+
+  while (true) {
+    // 2 - Stopping rules, checked between epochs.
+    if (stopRequested()) { result.stopReason = "interrupted"; break; }
+    if (outOfTime || elapsed() >= options.timeLimit) { result.stopReason = "time limit"; break; }
+    if (options.generations > 0 && generation >= options.generations) { result.stopReason = "generation limit"; break; }
+    if (options.stallGenerations > 0 && generation - lastImprovement >= options.stallGenerations) {
+      result.stopReason = "no improvement for " + std::to_string(options.stallGenerations) + " generations";
+      break;
+    }
+    if (best.hard == 0 && best.soft == 0) { result.stopReason = "no penalty left"; break; }
+
+    // 3 - One epoch: every island evolves on its own.
+    int epoch = options.migrationInterval;
+    if (options.generations > 0) epoch = static_cast<int>(std::min<long>(epoch, options.generations - generation));
+    std::vector<int> done(static_cast<size_t>(result.islands), 0);
+#pragma omp parallel for num_threads(result.threads) schedule(dynamic, 1)
+    for (int i = 0; i < result.islands; ++i) done[static_cast<size_t>(i)] = islands[static_cast<size_t>(i)]->evolve(epoch, stopNow);
+    generation += *std::max_element(done.begin(), done.end());
+
+    // 4 - Migration on the ring, in island order so the outcome never depends on threads.
+    if (result.islands > 1 && options.migrants > 0) {
+      std::vector<std::vector<Individual>> outgoing;
+      for (const auto& island : islands) outgoing.push_back(island->emigrants(options.migrants));
+      for (int i = 0; i < result.islands; ++i)
+        islands[static_cast<size_t>((i + 1) % result.islands)]->immigrate(outgoing[static_cast<size_t>(i)]);
+    }
+
+    const rules::Tally now = islands[static_cast<size_t>(bestIsland())]->best().score;
+    if (now < best) {
+      best = now;
+      lastImprovement = generation;
+      result.history.emplace_back(elapsed(), best);
+    }
+    if (onProgress) {
+      Progress p{elapsed(), generation, best, {}};
+      for (const auto& island : islands) p.islandBest.push_back(island->best().score);
+      onProgress(p);
+    }
+  }
+  const Island& winner = *islands[static_cast<size_t>(bestIsland())];
+  result.best = winner.best().genome;
+  result.score = winner.best().score;
+  result.generations = generation;
+  result.seconds = elapsed();
+  result.history.emplace_back(result.seconds, result.score);
+  return result;
+}
+
+}  // namespace rotaweave::search

@@ -1,0 +1,77 @@
+/// @brief The parameter table and its bounds checks.
+#include "search/solver_options.hpp"
+
+#include <sstream>
+#include <stdexcept>
+
+namespace rotaweave::search {
+
+const std::vector<ParameterInfo>& parameterTable() {
+  static const SolverOptions d;
+  static const std::vector<ParameterInfo> kTable{
+      {"time-limit", "stop after this many seconds", 0.1, 86400, d.timeLimit, false},
+      {"generations", "stop after this many generations (0: no limit)", 0, 1e9, static_cast<double>(d.generations), true},
+      {"stall", "stop after this many generations without improvement (0: never)", 0, 1e9, static_cast<double>(d.stallGenerations), true},
+      {"seed", "random seed; the same seed, islands and generations give the same roster (0: from the clock)", 0, 1.8e19, 0, true},
+      {"threads", "worker threads (0: all cores); does not change the result", 0, 256, 0, true},
+      {"islands", "independent populations, one per thread at a time", 1, 64, static_cast<double>(d.islands), true},
+      {"population", "individuals per island", 4, 1000, static_cast<double>(d.population), true},
+      {"elite", "best individuals kept unchanged each generation", 0, 100, static_cast<double>(d.elite), true},
+      {"tournament-size", "individuals drawn per tournament", 2, 32, static_cast<double>(d.tournamentSize), true},
+      {"crossover-rate", "probability that a child mixes two parents", 0, 1, d.crossoverRate, false},
+      {"block-crossover", "share of crossovers that exchange a block of days rather than whole rows", 0, 1, d.blockCrossoverShare, false},
+      {"mutation-rate", "probability that each cell of a child is reassigned", 0, 1, d.mutationRate, false},
+      {"local-search", "local-search moves tried on each child", 0, 1e7, static_cast<double>(d.localSearchMoves), true},
+      {"migration-interval", "generations between migrations on the island ring", 1, 1e6, static_cast<double>(d.migrationInterval), true},
+      {"migrants", "best individuals sent to the next island at each migration", 0, 100, static_cast<double>(d.migrants), true},
+  };
+  return kTable;
+}
+
+void setParameter(SolverOptions& o, const std::string& name, double v) {
+  const ParameterInfo* info = nullptr;
+  for (const auto& p : parameterTable())
+    if (name == p.name) info = &p;
+  if (!info) throw std::invalid_argument("unknown parameter '" + name + "'");
+  if (v < info->min || v > info->max || (info->integer && v != static_cast<double>(static_cast<long long>(v)))) {
+    std::ostringstream msg;
+    msg << "--" << name << " must be " << (info->integer ? "a whole number " : "") << "in [" << info->min << ", "
+        << info->max << "], got " << v;
+    throw std::invalid_argument(msg.str());
+  }
+  if (name == "time-limit") o.timeLimit = v;
+  else if (name == "generations") o.generations = static_cast<long>(v);
+  else if (name == "stall") o.stallGenerations = static_cast<long>(v);
+  else if (name == "seed") o.seed = static_cast<std::uint64_t>(v);
+  else if (name == "threads") o.threads = static_cast<int>(v);
+  else if (name == "islands") o.islands = static_cast<int>(v);
+  else if (name == "population") o.population = static_cast<int>(v);
+  else if (name == "elite") o.elite = static_cast<int>(v);
+  else if (name == "tournament-size") o.tournamentSize = static_cast<int>(v);
+  else if (name == "crossover-rate") o.crossoverRate = v;
+  else if (name == "block-crossover") o.blockCrossoverShare = v;
+  else if (name == "mutation-rate") o.mutationRate = v;
+  else if (name == "local-search") o.localSearchMoves = static_cast<int>(v);
+  else if (name == "migration-interval") o.migrationInterval = static_cast<int>(v);
+  else if (name == "migrants") o.migrants = static_cast<int>(v);
+}
+
+Selection parseSelection(const std::string& t) {
+  if (t == "tournament") return Selection::Tournament;
+  if (t == "rank") return Selection::Rank;
+  if (t == "sus") return Selection::StochasticUniversal;
+  if (t == "roulette") return Selection::Roulette;
+  throw std::invalid_argument("--selection must be tournament, rank, sus or roulette, got '" + t + "'");
+}
+
+const char* selectionName(Selection s) {
+  switch (s) {
+    case Selection::Tournament: return "tournament";
+    case Selection::Rank: return "rank";
+    case Selection::StochasticUniversal: return "sus";
+    case Selection::Roulette: return "roulette";
+  }
+  return "tournament";
+}
+
+}  // namespace rotaweave::search

@@ -1,0 +1,49 @@
+/// @brief Search parameters, declared once with bounds and help text (CLI help, validation, docs).
+#pragma once
+#include <cstdint>
+#include <string>
+#include <vector>
+
+namespace rotaweave::search {
+
+enum class Selection { Tournament, Rank, StochasticUniversal, Roulette };
+
+struct SolverOptions {
+  double timeLimit = 30;          ///< seconds
+  long generations = 0;           ///< 0: no limit
+  long stallGenerations = 400;    ///< stop after this many generations without improvement; 0: never
+  std::uint64_t seed = 0;         ///< 0: pick one from the clock (the one used is reported)
+  int threads = 0;                ///< 0: all cores
+  int islands = 4;
+  int population = 16;            ///< per island
+  int elite = 2;
+  Selection selection = Selection::Tournament;
+  int tournamentSize = 3;
+  double crossoverRate = 0.9;
+  double blockCrossoverShare = 0.5;  ///< share of crossovers that exchange a block of days
+  double mutationRate = 0.01;        ///< per cell
+  int localSearchMoves = 600;        ///< moves tried on each offspring
+  int migrationInterval = 8;         ///< generations between migrations
+  int migrants = 2;
+  bool quiet = false;
+};
+
+/// One tunable parameter: name as on the command line, help text, bounds and default.
+struct ParameterInfo {
+  const char* name;
+  const char* help;
+  double min, max;
+  double defaultValue;
+  bool integer;
+};
+
+/// Numeric parameters of SolverOptions, in display order.
+const std::vector<ParameterInfo>& parameterTable();
+/// Sets a numeric parameter by name after checking its bounds; throws std::invalid_argument
+/// with a message naming the value and the allowed range.
+void setParameter(SolverOptions& options, const std::string& name, double value);
+/// Parses tournament, rank, sus or roulette; throws std::invalid_argument otherwise.
+Selection parseSelection(const std::string& text);
+const char* selectionName(Selection s);
+
+}  // namespace rotaweave::search
