@@ -1,6 +1,7 @@
 /// @brief Explain, report, write.
 #include "app/pipeline.hpp"
 
+#include "analysis/capacity.hpp"
 #include "eval/evaluator.hpp"
 #include "io/output_writer.hpp"
 
@@ -12,6 +13,9 @@ Outcome reportAndWrite(const model::Problem& problem, const model::Roster& roste
   eval::Evaluator evaluator(ruleSet);
   Outcome outcome;
   outcome.report = report::buildReport(problem, roster, evaluator.explain(roster), std::move(run));
+  analysis::CapacityReport capacity = analysis::analyseCapacity(problem);
+  analysis::compareWithRoster(capacity, problem, roster, outcome.report.breaches);
+  outcome.report.capacity = std::move(capacity);
   io::writeStandardOutputs(out, io::OutputBundle{problem, roster, outcome.report});
   outcome.exitCode = outcome.report.hardCount > 0 ? 1 : 0;
   return outcome;

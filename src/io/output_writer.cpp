@@ -2,8 +2,10 @@
 #include "io/output_writer.hpp"
 
 #include "io/atomic_file.hpp"
+#include "io/ics_writer.hpp"
 #include "io/report_json.hpp"
 #include "io/roster_csv.hpp"
+#include "io/xlsx_writer.hpp"
 #include "report/text.hpp"
 
 namespace rotaweave::io {
@@ -37,6 +39,8 @@ std::vector<std::unique_ptr<OutputWriter>> standardWriters() {
   writers.push_back(std::make_unique<CsvWriter>());
   writers.push_back(std::make_unique<JsonWriter>());
   writers.push_back(std::make_unique<TextWriter>());
+  writers.push_back(std::make_unique<XlsxWriter>());
+  writers.push_back(std::make_unique<IcsWriter>());
   return writers;
 }
 

@@ -59,6 +59,7 @@ std::string reportJson(const report::Report& r, const model::Problem& p) {
         << ", \"message\": " << jsonString(b.message) << "}";
   }
   out << (r.breaches.empty() ? "],\n" : "\n  ],\n");
+  if (r.capacity) out << "  \"capacity\": " << analysis::renderCapacityJson(*r.capacity, p) << ",\n";
   out << "  \"caution\": " << jsonString(report::cautionText()) << "\n}\n";
   return out.str();
 }

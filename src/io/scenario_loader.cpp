@@ -317,15 +317,16 @@ void loadDemand(LoadContext& ctx, const Field& f) {
       lvl = 1;
       // Each item is a weekday name, `weekend` or `weekdays`; a date matches if any item does.
       const auto items = e.get("days").items();
+      auto isWeekdays = [](const std::string& w) { return w == "weekdays" || w == "weekday"; };
       for (const Field& d : items)
-        if (!model::parseWeekday(d.text()) && d.text() != "weekend" && d.text() != "weekdays")
+        if (!model::parseWeekday(d.text()) && d.text() != "weekend" && !isWeekdays(d.text()))
           d.fail("unknown day '" + d.text() + "'; use mon..sun, weekend or weekdays");
       for (DayIdx d = 0; d < p.days; ++d) {
         const bool isWeekend = p.weekend[static_cast<size_t>(d)];
         for (const Field& x : items) {
           const auto named = model::parseWeekday(x.text());
           if ((named && *named == p.weekday[static_cast<size_t>(d)]) || (x.text() == "weekend" && isWeekend) ||
-              (x.text() == "weekdays" && !isWeekend))
+              (isWeekdays(x.text()) && !isWeekend))
             applies[static_cast<size_t>(d)] = 1;
         }
       }

@@ -2,9 +2,11 @@
 /// rendered by every output format (text, JSON, workbook), so they always agree.
 #pragma once
 #include <cstdint>
+#include <optional>
 #include <string>
 #include <vector>
 
+#include "analysis/capacity.hpp"
 #include "model/problem.hpp"
 #include "model/roster.hpp"
 #include "rules/breach.hpp"
@@ -47,6 +49,7 @@ struct Report {
   std::vector<RuleSummary> byRule;
   std::vector<PersonSummary> byPerson; ///< One per person, in staff order.
   RunInfo run;
+  std::optional<analysis::CapacityReport> capacity;  ///< What the staff can cover at best, set against this roster.
 };
 
 Report buildReport(const model::Problem& problem, const model::Roster& roster, std::vector<rules::Breach> breaches,

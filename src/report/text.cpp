@@ -75,6 +75,8 @@ std::string renderText(const Report& r, const model::Problem& p) {
         << pad(std::to_string(ps.shiftsWorked) + " shifts", 11) << ps.weekendsWorked << " weekends\n";
   }
 
+  if (r.capacity) out << "\nCAPACITY (what the staff on hand can cover at best, whatever the roster)\n" << analysis::renderCapacityText(*r.capacity, p);
+
   out << "\nEVERY BREACH (hard first)\n";
   if (r.breaches.empty()) out << "  (none)\n";
   for (const auto& b : r.breaches) {

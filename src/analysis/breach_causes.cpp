@@ -1,0 +1,205 @@
+/// @brief Setting a roster's hard breaches against the capacity analysis: unavoidable or not,
+/// why, and what would remove them.
+#include <algorithm>
+#include <string>
+
+#include "analysis/capacity.hpp"
+#include "analysis/wording.hpp"
+
+namespace rotaweave::analysis {
+namespace {
+
+using model::Problem;
+using wording::namesText;
+using wording::slotText;
+
+/// The task of a cover breach, read back from its message ("2027-03-14 N rn: ..."); kOff if none.
+TaskIdx coverTask(const Problem& p, const rules::Breach& b) {
+  if (b.days.empty()) return kOff;
+  for (TaskIdx t = 1; t < p.taskCount(); ++t) {
+    if (!p.demandAt(b.days.front(), t).defined) continue;
+    const std::string prefix = slotText(p, b.days.front(), t) + ":";
+    if (b.message.compare(0, prefix.size(), prefix) == 0) return t;
+  }
+  return kOff;
+}
+
+bool isContractMinimum(const Problem& p, const rules::Breach& b) {
+  if (b.kind != "min-hours" || b.staff < 0) return false;
+  const int c = p.staff[static_cast<size_t>(b.staff)].contract;
+  return c >= 0 && b.ruleId == "contract-" + p.contracts[static_cast<size_t>(c)].id + "-min-hours";
+}
+
+bool isCalledInKind(const std::string& kind) { return kind == "absence" || kind == "fixed" || kind == "skill"; }
+
+/// People free for slot (d, t) by the analysis who are off in the roster that day.
+std::vector<std::string> idleFor(const Problem& p, const model::Roster& roster, DayIdx d, TaskIdx t) {
+  std::vector<std::string> ids;
+  const SkillIdx skill = p.tasks[static_cast<size_t>(t)].skill;
+  for (StaffIdx s = 0; s < p.staffCount(); ++s) {
+    const size_t c = p.cell(s, d);
+    if (roster.at(s, d) != kOff || p.absent[c] || !p.staff[static_cast<size_t>(s)].holds(skill)) continue;
+    if (p.fixed[c] >= 0 && p.fixed[c] != t) continue;
+    ids.push_back(p.staff[static_cast<size_t>(s)].id);
+  }
+  return ids;
+}
+
+std::string outsideCover(const Problem& p, DayIdx d, TaskIdx t, int persons) {
+  const model::Task& task = p.tasks[static_cast<size_t>(t)];
+  return "add " + std::to_string(persons) + " " + p.skills[static_cast<size_t>(task.skill)] + " from outside (bank, agency or another team) for " +
+         p.shifts[static_cast<size_t>(task.shift)].id + " on " + p.dateText(d);
+}
+
+std::string leaveRemedy(const std::vector<std::string>& absent, DayIdx d, const Problem& p) {
+  if (absent.empty()) return "";
+  return ", or move the leave of " + namesText(absent, 4) + " away from " + p.dateText(d);
+}
+
+std::vector<BreachTag> tagBreaches(const CapacityReport& r, const Problem& p, const model::Roster& roster,
+                                   const std::vector<rules::Breach>& breaches) {
+  std::vector<BreachTag> tags(breaches.size());
+  for (size_t i = 0; i < breaches.size(); ++i) tags[i].breach = i;
+  std::vector<int> budget = r.hardGap;  // unavoidable units per day still to explain
+  budget.resize(static_cast<size_t>(p.days), 0);
+  std::vector<TaskIdx> task(breaches.size(), kOff);
+  for (size_t i = 0; i < breaches.size(); ++i)
+    if (breaches[i].hard && breaches[i].kind == "cover") task[i] = coverTask(p, breaches[i]);
+
+  auto findCell = [&](DayIdx d, TaskIdx t) -> const CellShortfall* {
+    for (const auto& c : r.cells)
+      if (c.day == d && c.task == t && !c.target && c.hard) return &c;
+    return nullptr;
+  };
+  auto findDay = [&](DayIdx d) -> const DayShortfall* {
+    for (const auto& ds : r.days)
+      if (ds.day == d) return &ds;
+    return nullptr;
+  };
+  auto spend = [&](DayIdx d, int units) {
+    int& b = budget[static_cast<size_t>(d)];
+    const int used = std::min(b, units);
+    b -= used;
+    return used;
+  };
+
+  // 1. Cover breaches on slots that are short on their own.
+  for (size_t i = 0; i < breaches.size(); ++i) {
+    const auto& b = breaches[i];
+    if (task[i] == kOff) continue;
+    const DayIdx d = b.days.front();
+    const CellShortfall* cell = findCell(d, task[i]);
+    if (!cell) continue;
+    const int units = static_cast<int>(b.amount / kAmountScale);
+    const int proven = spend(d, std::min(units, cell->shortBy()));
+    if (proven <= 0) continue;
+    auto& tag = tags[i];
+    tag.unavoidable = true;
+    tag.cause = describe(*cell, p);
+    if (units > proven) tag.cause += "; this roster is short by " + std::to_string(units) + ", so " + std::to_string(units - proven) + " could be avoided";
+    tag.remedy = outsideCover(p, d, task[i], proven) + leaveRemedy(wording::absentIds(p, cell->missing), d, p) +
+                 ", or lower the minimum for that slot";
+  }
+  // 2. People called in (absent, fixed elsewhere, without the skill) to a minimum slot on a short day.
+  for (size_t i = 0; i < breaches.size(); ++i) {
+    const auto& b = breaches[i];
+    if (!b.hard || !isCalledInKind(b.kind) || b.staff < 0 || b.days.size() != 1) continue;
+    const DayIdx d = b.days.front();
+    const TaskIdx worked = roster.at(b.staff, d);
+    if (worked == kOff) continue;
+    const model::DemandCell& cell = p.demandAt(d, worked);
+    if (!cell.defined || !cell.minHard || cell.min <= 0 || spend(d, 1) == 0) continue;
+    auto& tag = tags[i];
+    tag.unavoidable = true;
+    const std::string& id = p.staff[static_cast<size_t>(b.staff)].id;
+    tag.cause = id + " is called in to " + slotText(p, d, worked) + ", a day whose minimums cannot all be met otherwise";
+    tag.remedy = outsideCover(p, d, worked, 1) + " and let " + id + " off";
+  }
+  // 3. Other cover breaches on a day that is short as a whole.
+  for (size_t i = 0; i < breaches.size(); ++i) {
+    const auto& b = breaches[i];
+    if (task[i] == kOff || tags[i].unavoidable) continue;
+    const DayIdx d = b.days.front();
+    const int units = static_cast<int>(b.amount / kAmountScale);
+    const int proven = spend(d, units);
+    auto& tag = tags[i];
+    if (proven > 0) {
+      tag.unavoidable = true;
+      const DayShortfall* day = findDay(d);
+      tag.cause = day ? describe(*day, p) : p.dateText(d) + ": the day's minimums cannot all be met at once";
+      if (units > proven) tag.cause += "; this roster is short by " + std::to_string(units) + " here, " + std::to_string(units - proven) + " of them avoidable";
+      tag.remedy = outsideCover(p, d, task[i], proven) + (day ? leaveRemedy(wording::absentIds(p, day->missing), d, p) : "");
+      continue;
+    }
+    const auto idle = idleFor(p, roster, d, task[i]);
+    tag.cause = idle.empty() ? "enough people could work this slot, but this roster uses them elsewhere"
+                             : "people who could work this slot are off that day: " + namesText(idle, 5);
+    tag.remedy = "give the slot to someone available (check rest and consecutive-day rules), or search longer (--time-limit)";
+  }
+  // 4. Everything else.
+  for (size_t i = 0; i < breaches.size(); ++i) {
+    const auto& b = breaches[i];
+    auto& tag = tags[i];
+    if (!b.hard || tag.unavoidable || task[i] != kOff) continue;
+    const std::string who = b.staff >= 0 ? p.staff[static_cast<size_t>(b.staff)].id : "";
+    if (isContractMinimum(p, b)) {
+      const auto it = std::find_if(r.people.begin(), r.people.end(), [&](const PersonShortfall& ps) { return ps.staff == b.staff; });
+      if (it != r.people.end()) {
+        tag.unavoidable = true;
+        tag.cause = describe(*it, p);
+        const Cost rosterShort = b.amount;  // minutes
+        if (rosterShort > it->shortMinutes())
+          tag.cause += "; this roster is short by " + wording::hoursText(rosterShort) + ", so " +
+                       wording::hoursText(rosterShort - it->shortMinutes()) + " of it could be avoided";
+        tag.remedy = "lower the contract minimum for " + who + " in this period to at most " + wording::hoursText(it->possibleMinutes) +
+                     (it->absentDays.empty() ? "" : ", or move " + who + "'s leave so more days are available");
+      } else {
+        tag.cause = who + " has enough available days to reach the contract minimum";
+        tag.remedy = "give " + who + " more shifts, or search longer (--time-limit)";
+      }
+      continue;
+    }
+    if (b.kind == "absence") {
+      tag.cause = who + " works on an absence day that the analysis does not show as short";
+      tag.remedy = "give the shift to someone available, or move " + who + "'s leave";
+    } else if (b.kind == "fixed") {
+      tag.cause = who + "'s pre-assigned cell is not kept";
+      tag.remedy = "restore the fixed cell, or remove the fixed entry for " + who;
+    } else if (b.kind == "skill") {
+      tag.cause = who + " fills a role without holding its skill";
+      tag.remedy = "give the role to someone holding the skill";
+    } else {
+      tag.cause = "not implied by the capacity analysis";
+      tag.remedy = "change the roster on these dates, search longer (--time-limit), or relax rule '" + b.ruleId + "'" +
+                   (who.empty() ? "" : " for " + who + " (narrow it with staff: [...] or make it soft)");
+    }
+  }
+  return tags;
+}
+
+}  // namespace
+
+std::vector<bool> unavoidable(const CapacityReport& report, const Problem& problem, const model::Roster& roster,
+                              const std::vector<rules::Breach>& breaches) {
+  std::vector<bool> out;
+  for (const auto& tag : tagBreaches(report, problem, roster, breaches)) out.push_back(tag.unavoidable);
+  return out;
+}
+
+void compareWithRoster(CapacityReport& report, const Problem& problem, const model::Roster& roster,
+                       const std::vector<rules::Breach>& breaches) {
+  RosterComparison cmp;
+  for (const auto& b : breaches) {
+    if (b.hard) cmp.hard += b.penalty;
+    if (b.kind != "cover") continue;
+    if (b.hard) cmp.coverHard += b.penalty, cmp.coverHardUnits += static_cast<int>(b.amount / kAmountScale);
+    else if (b.message.find(" wanted") != std::string::npos && b.message.find("at most") == std::string::npos)
+      cmp.coverSoft += b.penalty;  // target part ("N wanted"), not the max part ("at most N wanted")
+  }
+  cmp.coverSoftBound = report.coverSoftBound(cmp.hard);
+  for (auto& tag : tagBreaches(report, problem, roster, breaches))
+    if (breaches[tag.breach].hard) cmp.tags.push_back(std::move(tag));
+  report.roster = std::move(cmp);
+}
+
+}  // namespace rotaweave::analysis

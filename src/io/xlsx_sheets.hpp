@@ -1,0 +1,80 @@
+/// @brief Shared pieces of the workbook writer: error checks, cached formats, the shift palette
+/// and one function per sheet. Internal to the xlsx_*.cpp files.
+#pragma once
+#include <xlsxwriter.h>
+
+#include <map>
+#include <string>
+
+#include "io/output_writer.hpp"
+
+namespace rotaweave::io::xlsx {
+
+/// Throws OutputError naming `what` unless `err` is LXW_NO_ERROR.
+void check(lxw_error err, const char* what);
+
+/// No colour set.
+inline constexpr lxw_color_t kNoColour = 0xFFFFFFFFu;
+
+/// Cell styles, created once per distinct look and owned by the workbook.
+struct Style {
+  lxw_color_t fill = kNoColour;
+  lxw_color_t font = kNoColour;
+  bool bold = false;
+  bool italic = false;
+  bool wrap = false;
+  bool center = false;
+  bool left = false;
+  int border = 0;  ///< an LXW_BORDER_* value, 0 for none
+  lxw_color_t borderColour = kNoColour;
+  const char* numFormat = nullptr;
+  int rotation = 0;
+  bool hatched = false;  ///< light diagonal stripes over the fill
+  bool top = false;      ///< align to the top (wrapped text)
+  auto operator<=>(const Style&) const = default;
+};
+
+class Formats {
+ public:
+  explicit Formats(lxw_workbook* book) : book_(book) {}
+  lxw_format* get(const Style& style);
+
+ private:
+  lxw_workbook* book_;
+  std::map<Style, lxw_format*> cache_;
+};
+
+/// Everything a sheet function needs.
+struct Book {
+  lxw_workbook* workbook;
+  Formats& formats;
+  const OutputBundle& data;
+};
+
+/// Shades used across the sheets.
+inline constexpr lxw_color_t kHeaderFill = 0x2F4858;   // dark slate, white text
+inline constexpr lxw_color_t kWeekendFill = 0xE4E9ED;  // pale blue-grey
+inline constexpr lxw_color_t kHolidayFill = 0xF3E3C8;  // pale sand
+inline constexpr lxw_color_t kAbsenceFill = 0xD9D9D9;  // grey
+inline constexpr lxw_color_t kHardColour = 0xC0392B;   // red
+inline constexpr lxw_color_t kSoftColour = 0xE08E0B;   // amber
+inline constexpr lxw_color_t kShortFill = 0xF8D7D3;    // pale red
+inline constexpr lxw_color_t kTargetFill = 0xFCEBC7;   // pale amber
+
+/// The fill colour of a shift: its scenario colour, or one of our defaults.
+lxw_color_t shiftColour(const model::Problem& p, ShiftIdx shift);
+/// Black or white, whichever reads better on `fill`.
+lxw_color_t textColourOn(lxw_color_t fill);
+/// "Mon", "Tue", ...
+std::string weekdayLabel(int weekday);
+/// The date of period day `d` as an Excel date-time value.
+lxw_datetime excelDate(const model::Problem& p, DayIdx d);
+/// "Early 07:00-15:00 (7.5 h paid)".
+std::string shiftDescription(const model::ShiftType& shift);
+
+void writeRosterSheet(Book& book);
+void writeCoverSheet(Book& book);
+void writeViolationsSheet(Book& book);
+void writeSummarySheet(Book& book);
+
+}  // namespace rotaweave::io::xlsx

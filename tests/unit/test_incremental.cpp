@@ -1,0 +1,92 @@
+/// @brief Property: the incremental score of every move equals a full re-evaluation after it.
+#include <doctest/doctest.h>
+
+#include <filesystem>
+
+#include "fixtures.hpp"
+#include "io/scenario_loader.hpp"
+#include "search/construction.hpp"
+#include "search/eligibility.hpp"
+#include "search/local_search.hpp"
+
+using namespace rotaweave;
+
+namespace {
+
+/// Applies `moves` random moves, committing about half, and checks delta against full scoring.
+void checkDeltas(const model::Problem& p, int moves, std::uint64_t seed) {
+  const rules::RuleSet set(p);
+  const search::Eligibility elig(p);
+  eval::Evaluator inc(set), full(set);
+  search::Rng rng(seed);
+  model::Roster g(p.staffCount(), p.days);
+  search::randomRoster(elig, g, 0.5, rng);
+  inc.load(g);
+  REQUIRE(inc.total() == full.score(g));
+  eval::Move move;
+  for (int i = 0; i < moves; ++i) {
+    search::randomMove(elig, inc.roster(), rng, move);
+    // Also try moves that ignore eligibility (a hand-made roster may hold anything).
+    if (i % 7 == 0 && move.size == 0) move.add(rng.below(p.staffCount()), rng.below(p.days), static_cast<TaskIdx>(rng.below(p.taskCount())));
+    if (move.size == 0) continue;
+    const rules::Tally predicted = inc.tryMove(move);
+    model::Roster after = inc.roster();
+    for (const auto& c : move) after.at(c.staff, c.day) = c.task;
+    const rules::Tally actual = full.score(after);
+    REQUIRE(predicted == actual);
+    if (rng.chance(0.5)) {
+      inc.commit();
+      REQUIRE(inc.total() == actual);
+      REQUIRE(inc.roster() == after);
+    }
+  }
+}
+
+}  // namespace
+
+TEST_SUITE("eval") {
+  TEST_CASE("incremental and full scores agree on every rule kind") {
+    const auto p = test::loadYaml(test::header(21) +
+                                  "contracts:\n  ft: {hours: {min: 80, max: 100}}\n"
+                                  "staff:\n"
+                                  "  - {id: a, contract: ft, skills: [rn], history: [N, N, off], requests: [{date: 2027-03-03, off: true}, {date: 2027-03-04, shift: E, weight: 2}, {date: 2027-03-05, not: N}]}\n"
+                                  "  - {id: b, contract: ft, skills: [rn], absences: [{from: 2027-03-08, to: 2027-03-10}], fixed: [{date: 2027-03-01, shift: L}]}\n"
+                                  "  - {id: c, skills: [rn], history: [E]}\n"
+                                  "  - {id: d, skills: [rn]}\n"
+                                  "demand:\n  - {shift: E, skill: rn, min: 1, target: 2, max: 2}\n  - {shift: N, skill: rn, min: 1}\n"
+                                  "  - {shift: L, skill: rn, min: 1, days: [sat, sun], max: 1}\n"
+                                  "rules:\n  list:\n"
+                                  "    - {kind: min-rest, hours: 11}\n"
+                                  "    - {kind: forbid-sequence, sequence: [N, off, E]}\n"
+                                  "    - {kind: min-consecutive-days, days: 2}\n"
+                                  "    - {kind: max-consecutive-days, days: 5}\n"
+                                  "    - {kind: min-consecutive, shift: N, count: 2}\n"
+                                  "    - {kind: max-consecutive, shift: N, count: 3, severity: soft}\n"
+                                  "    - {kind: min-consecutive-off, days: 2, severity: soft}\n"
+                                  "    - {kind: days-off-after, shift: N, days: 2}\n"
+                                  "    - {kind: min-hours, hours: 16, window_days: 7}\n"
+                                  "    - {kind: max-hours, hours: 40, window_days: 7}\n"
+                                  "    - {kind: min-count, shift: E, count: 2}\n"
+                                  "    - {kind: max-count, count: 15}\n"
+                                  "    - {kind: max-weekends, count: 2}\n"
+                                  "    - {kind: complete-weekends, severity: soft}\n"
+                                  "    - {kind: weekly-rest, hours: 35}\n"
+                                  "    - {kind: fair-share, shift: N}\n"
+                                  "    - {kind: fair-share, weekends: true, weight: 2}\n");
+    for (std::uint64_t seed = 1; seed <= 5; ++seed) checkDeltas(p, 3000, seed);
+  }
+
+  TEST_CASE("incremental and full scores agree on the bundled samples") {
+    namespace fs = std::filesystem;
+    const fs::path samples = fs::path(ROTAWEAVE_SOURCE_DIR) / "samples";
+    int checked = 0;
+    for (const auto& entry : fs::directory_iterator(samples)) {
+      const fs::path scenario = entry.path() / "scenario.yaml";
+      if (!fs::exists(scenario)) continue;
+      CAPTURE(scenario.string());
+      checkDeltas(io::loadScenario(scenario.string()), 3000, 7);
+      ++checked;
+    }
+    CHECK(checked >= 1);
+  }
+}
