@@ -125,10 +125,13 @@ void writeHeader(Book& bk, lxw_worksheet* ws, const Layout& l, const MarkMap& ma
     check(worksheet_write_string(ws, kWeekdayRow, dayCol(d), weekdayLabel(p.weekday[di]).c_str(), f.get(h)), "roster header");
     Style date = h;
     const std::string iso = p.dateText(d);
-    date.numFormat = (d == 0 || iso.substr(8) == "01") ? "d mmm" : "d";
+    date.numFormat = (d == 0 || iso.substr(8) == "01") ? "dd mmm" : "dd";  // "d" alone is not read as a date by some readers
     auto it = marks.find({kDateRow, dayCol(d)});
     const Marks* m = it == marks.end() ? nullptr : &it->second;
-    if (m) date.font = m->hard ? kHardColour : kSoftColour;
+    if (m) {  // cover short or over that day: a pale warning fill that stays readable
+      date.fill = m->hard ? kShortFill : kTargetFill;
+      date.font = m->hard ? kHardColour : 0x7A4B00;
+    }
     lxw_datetime dt = excelDate(p, d);
     check(worksheet_write_datetime(ws, kDateRow, dayCol(d), &dt, f.get(date)), "roster header");
     if (m) writeComment(ws, kDateRow, dayCol(d), *m);
@@ -197,7 +200,7 @@ void writePerson(Book& bk, lxw_worksheet* ws, const Layout& l, const MarkMap& ma
   const model::Contract* contract = person.contract >= 0 ? &p.contracts[static_cast<size_t>(person.contract)] : nullptr;
   const int paid = sum.paidMinutes;
   Style hours;
-  hours.numFormat = "0.0";
+  hours.numFormat = "0.0#";
   hours.center = true;
   const bool under = contract && contract->minMinutes && paid < *contract->minMinutes;
   const bool over = contract && contract->maxMinutes && paid > *contract->maxMinutes;
