@@ -1,12 +1,17 @@
 /// @brief The last step shared by every command: explain the roster, build the report, write it.
 #pragma once
 #include <filesystem>
+#include <vector>
 
 #include "app/commands.hpp"
 #include "model/problem.hpp"
 #include "model/roster.hpp"
 
 namespace rotaweave::app {
+
+/// Runs the search from `seeds` (may be empty), then reports and writes the best roster.
+Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::Roster>& seeds, const SolveRequest& request,
+                       const char* command);
 
 Outcome reportAndWrite(const model::Problem& problem, const model::Roster& roster, report::RunInfo run,
                        const std::filesystem::path& out);
