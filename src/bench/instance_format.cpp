@@ -90,6 +90,7 @@ std::map<std::string, Section> readSections(std::istream& in, const Diagnostics&
     Section* current = nullptr;
     std::string raw;
     for (int number = 1; std::getline(in, raw); ++number) {
+        if (number == 1 && raw.rfind("\xEF\xBB\xBF", 0) == 0) raw.erase(0, 3);  // UTF-8 byte order mark
         const std::string text = trim(raw);
         if (text.empty() || text.front() == '#') continue;
         if (text.rfind("SECTION_", 0) == 0) {
@@ -334,19 +335,44 @@ std::string list(const std::vector<std::string>& items, bool verbatim = false) {
 }
 
 std::string clock(int minuteOfDay) {
-    char text[8];
+    char text[32];
     std::snprintf(text, sizeof text, "%02d:%02d", minuteOfDay / 60, minuteOfDay % 60);
     return text;
 }
 
-/// Minutes as hours, written exactly when 60 divides them into at most two decimals.
+/// Minutes as hours: exact when 60 divides them into at most two decimals (minutes % 3 == 0),
+/// else to 1e-10 h, so that hours * 60 comes back to the same whole minutes.
 std::string hours(int minutes) {
     char text[32];
-    if (minutes % 3 == 0)
-        std::snprintf(text, sizeof text, "%g", minutes / 60.0);
+    if (minutes % 3 != 0) {
+        std::snprintf(text, sizeof text, "%.10f", minutes / 60.0);
+        return text;
+    }
+    const int hundredths = minutes / 3 * 5;
+    if (hundredths % 100 == 0)
+        std::snprintf(text, sizeof text, "%d", hundredths / 100);
+    else if (hundredths % 10 == 0)
+        std::snprintf(text, sizeof text, "%d.%d", hundredths / 100, hundredths % 100 / 10);
     else
-        std::snprintf(text, sizeof text, "%.6f", minutes / 60.0);
+        std::snprintf(text, sizeof text, "%d.%02d", hundredths / 100, hundredths % 100);
     return text;
+}
+
+bool isScenarioId(const std::string& id) {
+    return !id.empty() && id != "off" && std::all_of(id.begin(), id.end(), [](unsigned char c) {
+        return std::isalnum(c) || c == '-' || c == '_' || c == '.';
+    });
+}
+
+/// Scenario ids hold only letters, digits, '-', '_' and '.', and `off` means a day off.
+void requireScenarioIds(const Instance& instance) {
+    const auto check = [](const std::string& what, const std::string& id) {
+        if (!isScenarioId(id))
+            throw std::runtime_error("cannot convert " + what + " '" + id +
+                                     "': a scenario id holds only letters, digits, '-', '_' and '.', and is not 'off'");
+    };
+    for (const ShiftType& shift : instance.shifts) check("shift", shift.id);
+    for (const StaffMember& member : instance.staff) check("staff", member.id);
 }
 
 constexpr int kShiftStartMinute = 8 * 60;
@@ -354,10 +380,10 @@ constexpr int kShiftStartMinute = 8 * 60;
 void writeShifts(std::ostream& out, const Instance& instance) {
     out << "shifts:\n";
     for (const ShiftType& shift : instance.shifts) {
-        if (shift.lengthMinutes > 1440)
-            throw std::runtime_error("shift '" + shift.id + "' lasts more than 24 hours");
-        if (shift.id == "off")
-            throw std::runtime_error("shift id 'off' is reserved in the scenario format");
+        if (shift.lengthMinutes >= 1440)
+            throw std::runtime_error("cannot convert shift '" + shift.id + "': it lasts " +
+                                     std::to_string(shift.lengthMinutes) +
+                                     " minutes, a scenario shift less than 24 hours");
         out << "  - {id: " << scalar(shift.id) << ", start: \"" << clock(kShiftStartMinute) << "\", end: \""
             << clock((kShiftStartMinute + shift.lengthMinutes) % 1440) << "\", break_minutes: 0}\n";
     }
@@ -411,7 +437,7 @@ void writeDemand(std::ostream& out, const Instance& instance) {
             if (it == groups.end()) it = groups.insert(groups.end(), {key, {}});
             it->second.push_back(dateOf(row.day));
         }
-    out << "demand:\n";
+    out << (groups.empty() ? "demand: []\n" : "demand:\n");
     for (const auto& [key, dates] : groups) {
         const auto& [shift, requirement, under, over] = key;
         out << "  - {shift: " << scalar(shift) << ", skill: any, min: 0, target: " << requirement
@@ -522,6 +548,7 @@ Instance parseInstanceFile(const std::string& path) {
 }
 
 std::string toScenarioYaml(const Instance& instance, const std::string& name) {
+    requireScenarioIds(instance);
     std::ostringstream out;
     out << "# Employee Shift Scheduling Benchmark instance in rotaweave's scenario format.\n"
         << "# Every benchmark constraint is a hard rule; requests and cover carry the benchmark's soft weights.\n"

@@ -82,8 +82,9 @@ inline constexpr const char* kScenarioStartDate = "2027-03-01";
 /// (forbid-sequence, max-count, max-hours, min-hours, max-consecutive-days,
 /// min-consecutive-days, min-consecutive-off, max-weekends), narrowed to the staff that share a
 /// limit. Limits that cannot bind in the horizon are left out. Output is deterministic.
-/// @throws std::runtime_error when the instance cannot be expressed (a shift length outside
-/// 1..1440 minutes, or a shift named `off`).
+/// @throws std::runtime_error when the instance cannot be expressed: a shift of 24 hours or
+/// more, or a shift or staff id that is not a scenario id (letters, digits, '-', '_', '.';
+/// not `off`).
 std::string toScenarioYaml(const Instance& instance, const std::string& name);
 
 }  // namespace rotaweave::bench

@@ -6,9 +6,9 @@ Usage:
       Prints "hard N" (number of hard-constraint violations in the benchmark's own sense)
       and "soft P" (the benchmark objective: request and cover penalties).
   benchmark_score.py INSTANCE.txt --random N --seed S --out DIR
-      Writes N rosters DIR/roster-000.csv ... for tests, cycling through four kinds:
-      uniform random, random that keeps the days off, feasible (every hard constraint holds,
-      when the construction succeeds) and feasible with one cell changed.
+      Writes N rosters DIR/roster-000.csv ... for tests: uniform random, random that keeps the
+      days off, feasible (every hard constraint holds, when the construction succeeds), then
+      copies of the feasible one with one cell changed.
 
 Rosters use rotaweave's CSV layout: header "staff,DATE,...", one row per employee, cell = shift
 id (optionally "SHIFT/skill"), empty = day off. Column k is benchmark day k; the first date must
@@ -222,87 +222,116 @@ def random_row(inst, s, rng, keep_days_off):
     return cells
 
 
-class _RowSearch:
-    """Randomised depth-first search for one employee's row meeting every hard constraint."""
+class _Pattern:
+    """Work/off patterns of one employee: the run rules, weekends and days off, without shift types.
 
-    def __init__(self, inst, s, rng, budget):
-        self.inst, self.s, self.rng, self.budget = inst, s, rng, budget
-        h = inst.horizon
-        self.free_days_after = [0] * (h + 1)
-        for d in range(h - 1, -1, -1):
-            self.free_days_after[d] = self.free_days_after[d + 1] + (d not in s["days_off"])
-        self.free_weekdays_after = [0] * (h + 1)
-        for d in range(h - 1, -1, -1):
-            free_weekday = d not in s["days_off"] and d % 7 < 5
-            self.free_weekdays_after[d] = self.free_weekdays_after[d + 1] + free_weekday
-        self.max_len = max(inst.length.values())
+    A state (run, edge, weekends) holds the current run (> 0 worked days, < 0 days off, capped at
+    MinConsecutiveDaysOff; 0 before day 0), whether that run began on day 0, and the weekends
+    worked so far."""
+
+    def __init__(self, inst, s):
+        self.s, self.h = s, inst.horizon
+        self.off_cap = max(s["min_off"], 1)
+        self.memo = {}
+
+    def step(self, d, state, work):
+        """The state after day d, or None when that choice breaks a rule."""
+        s, (run, edge, weekends) = self.s, state
+        if not work:
+            if 0 < run < s["min_consecutive"] and not edge:
+                return None
+            return (max(run - 1, -self.off_cap) if run < 0 else -1, edge if run < 0 else d == 0, weekends)
+        if d in s["days_off"] or max(run, 0) + 1 > s["max_consecutive"]:
+            return None
+        if run < 0 and -run < s["min_off"] and not edge:
+            return None
+        if d % 7 == 5 or (d % 7 == 6 and run <= 0):
+            weekends += 1
+            if weekends > s["max_weekends"]:
+                return None
+        return (run + 1 if run > 0 else 1, edge if run > 0 else d == 0, weekends)
+
+    def bounds(self, d, state):
+        """(fewest, most) days that can still be worked from day d on, or None if no pattern is left."""
+        key = (d, state)
+        if key not in self.memo:
+            if d == self.h:
+                self.memo[key] = (0, 0)
+            else:
+                found = []
+                for work in (False, True):
+                    nxt = self.step(d, state, work)
+                    rest = self.bounds(d + 1, nxt) if nxt is not None else None
+                    if rest is not None:
+                        found.append((rest[0] + work, rest[1] + work))
+                self.memo[key] = (min(f[0] for f in found), max(f[1] for f in found)) if found else None
+        return self.memo[key]
+
+
+class _RowSearch:
+    """Randomised depth-first search for one employee's row meeting every hard constraint,
+    pruned by the pattern bounds on the days still to be worked."""
+
+    def __init__(self, inst, s, pattern, rng, budget):
+        self.inst, self.s, self.pattern, self.rng, self.budget = inst, s, pattern, rng, budget
         self.target = (s["min_minutes"] + s["max_minutes"]) / 2
-        self.cells = [None] * h
+        self.cells = [None] * inst.horizon
         self.counts = {sid: 0 for sid in inst.shifts}
 
     def run(self):
         try:
-            return list(self.cells) if self._extend(0, 0, 0, 0, True) else None
+            return list(self.cells) if self._extend(0, 0, (0, True, 0)) else None
         except TimeoutError:
             return None
 
-    def _options(self, d, minutes, run, weekends):
+    def _options(self, d, minutes, state):
         """Candidate cells for day d, most promising first: weekends are rationed to the
-        MaxWeekends budget, weekdays follow the pace towards the middle of the minutes range."""
+        MaxWeekends budget, other days follow the pace towards the middle of the minutes range."""
         s, inst, h = self.s, self.inst, self.inst.horizon
-        if d in s["days_off"]:
-            return [None]
+        run, _, weekends = state
         shifts = [x for x in inst.shifts if s["max_shifts"].get(x, 10 ** 9) > self.counts[x]]
-        weekends_left = max((h - d + 1) // 7, 1)
-        budget = s["max_weekends"] - weekends
-        if d % 7 == 5 or (d % 7 == 6 and self.cells[d - 1] is None):
-            want_work = budget / weekends_left - (0.5 if d % 7 == 6 else 0)
+        self.rng.shuffle(shifts)
+        if d % 7 == 5 or (d % 7 == 6 and run <= 0):
+            want_work = (s["max_weekends"] - weekends) / max((h - d + 1) // 7, 1) - 0.5 * (d % 7 == 6)
         else:
-            slots = self.free_weekdays_after[d] + 2 * min(max(budget, 0), weekends_left)
-            mean = sum(inst.length[x] for x in shifts) / len(shifts) if shifts else 1
-            want_work = (self.target - minutes) / (mean * max(slots, 1))
+            days_left = h - d
+            want_work = (self.target - minutes) / (self.target / h * days_left * 1.2 + 1)
         if 0 < run < s["min_consecutive"]:
             want_work += 0.5
-        if run < 0 and -run < s["min_off"]:
-            want_work -= 0.5
-        long_first = (self.target - minutes) > 0.8 * self.max_len * self.free_days_after[d]
-        self.rng.shuffle(shifts)
-        if long_first:
-            shifts.sort(key=lambda x: -inst.length[x])
         return shifts + [None] if self.rng.random() < want_work else [None] + shifts
 
-    def _extend(self, d, minutes, run, weekends, edge_run):
-        """run > 0: worked days in the current run, < 0: days off; edge_run: the run began on day 0."""
+    def _minutes(self, days, longest):
+        """Most (or fewest) minutes `days` more shifts can add within the MaxShifts limits."""
+        total = 0
+        for sid in sorted(self.inst.shifts, key=self.inst.length.get, reverse=longest):
+            take = min(days, self.s["max_shifts"].get(sid, days) - self.counts[sid])
+            total += take * self.inst.length[sid]
+            days -= take
+        return total if days <= 0 else (float("inf") if not longest else total)
+
+    def _extend(self, d, minutes, state):
         self.budget -= 1
         if self.budget < 0:
             raise TimeoutError
-        s, inst, h = self.s, self.inst, self.inst.horizon
-        if minutes + self.free_days_after[d] * self.max_len < s["min_minutes"]:
-            return False
-        if d == h:
+        if d == self.inst.horizon:
             return True
+        s, inst = self.s, self.inst
         prev = self.cells[d - 1] if d > 0 else None
-        weekend_day = d % 7 in (5, 6)
-        weekend_worked = d % 7 == 6 and prev is not None
-        for v in self._options(d, minutes, run, weekends):
-            if v is None:
-                if run > 0 and run < s["min_consecutive"] and not edge_run:
-                    continue
-                nxt = (run - 1 if run < 0 else -1, edge_run if run < 0 else d == 0)
-                new_minutes, new_weekends = minutes, weekends
-            else:
-                if max(run, 0) + 1 > s["max_consecutive"] or (run > 0 and v in inst.cannot_follow[prev]):
-                    continue
-                if run < 0 and -run < s["min_off"] and not edge_run:
-                    continue
-                new_minutes = minutes + inst.length[v]
-                new_weekends = weekends + (1 if weekend_day and not weekend_worked else 0)
-                if new_minutes > s["max_minutes"] or new_weekends > s["max_weekends"]:
-                    continue
-                nxt = (run + 1 if run > 0 else 1, edge_run if run > 0 else d == 0)
+        for v in self._options(d, minutes, state):
+            nxt = self.pattern.step(d, state, v is not None)
+            if nxt is None or (v is not None and prev is not None and v in inst.cannot_follow[prev]):
+                continue
+            new_minutes = minutes + (inst.length[v] if v is not None else 0)
+            rest = self.pattern.bounds(d + 1, nxt)
+            if v is not None:
                 self.counts[v] += 1
+            if (rest is None or new_minutes + self._minutes(rest[1], True) < s["min_minutes"]
+                    or new_minutes + self._minutes(rest[0], False) > s["max_minutes"]):
+                if v is not None:
+                    self.counts[v] -= 1
+                continue
             self.cells[d] = v
-            if self._extend(d + 1, new_minutes, nxt[0], new_weekends, nxt[1]):
+            if self._extend(d + 1, new_minutes, nxt):
                 return True
             if v is not None:
                 self.counts[v] -= 1
@@ -312,9 +341,10 @@ class _RowSearch:
 
 def feasible_row(inst, s, rng, tries=20, budget=20000):
     """A row meeting every hard constraint of `s`, or None when none was found in time."""
-    sys.setrecursionlimit(max(10000, 4 * inst.horizon))
+    sys.setrecursionlimit(max(10000, 8 * inst.horizon))
+    pattern = _Pattern(inst, s)
     for _ in range(tries):
-        row = _RowSearch(inst, s, rng, budget).run()
+        row = _RowSearch(inst, s, pattern, rng, budget).run()
         if row is not None:
             return row
     return None
@@ -342,12 +372,13 @@ def mutate(inst, roster, rng):
 KINDS = ("uniform", "days-off-kept", "feasible", "feasible-mutant")
 
 
-def random_rosters(inst, n, seed):
-    """Yields (kind, roster, role_suffix cells) for n rosters."""
+def random_rosters(inst, n, seed, kinds=KINDS):
+    """Yields (kind, roster, role_suffix cells) for n rosters: one of each of `kinds` in order,
+    then more of the last kind (further mutants of the same feasible roster)."""
     rng = random.Random(seed)
     feasible = None
     for i in range(n):
-        kind = KINDS[i % len(KINDS)]
+        kind = kinds[min(i, len(kinds) - 1)]
         suffix = frozenset()
         if kind == "uniform":
             roster = {s["id"]: random_row(inst, s, rng, False) for s in inst.staff}
@@ -356,7 +387,7 @@ def random_rosters(inst, n, seed):
             suffix = frozenset((s["id"], d) for s in inst.staff for d in range(inst.horizon)
                                if rng.random() < 0.1)
         else:
-            if feasible is None or kind == "feasible":
+            if feasible is None:
                 feasible = feasible_roster(inst, rng)
             roster = feasible if kind == "feasible" else mutate(inst, feasible, rng)
         yield kind, roster, suffix
@@ -384,6 +415,14 @@ def main(argv):
     p.add_argument("--seed", type=int, default=1)
     p.add_argument("--out", default=".", help="folder for --random rosters")
     a = p.parse_args(argv)
+    try:
+        return run(p, a)
+    except (OSError, ValueError, KeyError, IndexError) as e:
+        print(f"error: {e}", file=sys.stderr)
+        return 2
+
+
+def run(p, a):
     inst = parse_instance(a.instance)
     if a.random is not None:
         for kind, path in write_random(inst, a.random, a.seed, a.out):
