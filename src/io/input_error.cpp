@@ -2,20 +2,27 @@
 #include "io/input_error.hpp"
 
 #include <algorithm>
+#include <cctype>
 
 namespace rotaweave::io {
 namespace {
 
+/// Edits (insert, delete, replace, swap of two neighbours) to turn a into b.
 size_t editDistance(const std::string& a, const std::string& b) {
-  std::vector<size_t> prev(b.size() + 1), cur(b.size() + 1);
-  for (size_t j = 0; j <= b.size(); ++j) prev[j] = j;
-  for (size_t i = 1; i <= a.size(); ++i) {
-    cur[0] = i;
-    for (size_t j = 1; j <= b.size(); ++j)
-      cur[j] = std::min({prev[j] + 1, cur[j - 1] + 1, prev[j - 1] + (a[i - 1] == b[j - 1] ? 0 : 1)});
-    std::swap(prev, cur);
-  }
-  return prev[b.size()];
+  std::vector<std::vector<size_t>> d(a.size() + 1, std::vector<size_t>(b.size() + 1));
+  for (size_t i = 0; i <= a.size(); ++i) d[i][0] = i;
+  for (size_t j = 0; j <= b.size(); ++j) d[0][j] = j;
+  for (size_t i = 1; i <= a.size(); ++i)
+    for (size_t j = 1; j <= b.size(); ++j) {
+      d[i][j] = std::min({d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + (a[i - 1] == b[j - 1] ? 0 : 1)});
+      if (i > 1 && j > 1 && a[i - 1] == b[j - 2] && a[i - 2] == b[j - 1]) d[i][j] = std::min(d[i][j], d[i - 2][j - 2] + 1);
+    }
+  return d[a.size()][b.size()];
+}
+
+std::string lowered(std::string s) {
+  for (char& c : s) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+  return s;
 }
 
 }  // namespace
@@ -28,11 +35,18 @@ std::string InputError::format(const std::string& file, int line, int column, co
 }
 
 std::string closestMatch(const std::string& word, const std::vector<std::string>& candidates) {
+  // Long words (and whole-word input such as a pasted cell) are not worth comparing.
+  if (word.empty() || word.size() > 64) return "";
+  for (const auto& c : candidates)
+    if (lowered(c) == lowered(word)) return c;  // differs only in upper / lower case
   std::string best;
-  size_t bestDistance = std::max<size_t>(2, word.size() / 3) + 1;
+  // At most two edits (one per three letters in long words), and never a suggestion that
+  // shares nothing with the word: 'X' is not a misspelt 'E'.
+  size_t bestDistance = std::min(std::max<size_t>(2, word.size() / 3), word.size() - 1) + 1;
   for (const auto& c : candidates) {
+    if (c.size() > 64) continue;
     const size_t d = editDistance(word, c);
-    if (d < bestDistance) bestDistance = d, best = c;
+    if (d < bestDistance && d < std::max(word.size(), c.size())) bestDistance = d, best = c;
   }
   return best;
 }

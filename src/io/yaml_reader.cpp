@@ -3,6 +3,7 @@
 
 #include <cmath>
 #include <fstream>
+#include <iomanip>
 #include <set>
 #include <sstream>
 
@@ -35,13 +36,15 @@ YAML::Node Field::parseFile(const std::string& file) {
   buffer << in.rdbuf();
   const std::string text = buffer.str();
   if (text.find_first_not_of(" \t\r\n") == std::string::npos)
-    throw InputError(file, 0, 0, "the file is empty; a scenario needs at least period, shifts, skills and staff");
+    throw InputError(file, 0, 0, "the file is empty; a scenario needs at least period, shifts, skills and staff, "
+                                 "a rule file a list: of rules");
   if (const int line = badUtf8Line(text))
     throw InputError(file, line, 0, "the file is not valid UTF-8; save it as UTF-8 text");
   try {
     return YAML::Load(text);
   } catch (const YAML::Exception& e) {
-    throw InputError(file, e.mark.line + 1, e.mark.column + 1, "YAML syntax error: " + e.msg);
+    throw InputError(file, e.mark.line + 1, e.mark.column + 1,
+                     "YAML syntax error: " + e.msg + "; check brackets, quotes and indentation (spaces, not tabs) here or just above");
   }
 }
 
@@ -128,7 +131,7 @@ double Field::number(double min, double max) const {
   if (used != s.size() || !std::isfinite(v)) fail("expected a number, found " + quoted(s));
   if (v < min || v > max) {
     std::ostringstream msg;
-    msg << "value " << s << " is out of range; expected " << min << " to " << max;
+    msg << std::setprecision(15) << "value " << s << " is out of range; expected " << min << " to " << max;
     fail(msg.str());
   }
   return v;
