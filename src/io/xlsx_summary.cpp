@@ -104,9 +104,11 @@ void writeProgress(Writer& w) {
   head.font = 0xFFFFFF;
   head.bold = true;
   const char* names[] = {"Seconds", "Best hard", "Best soft"};
+  head.center = true;
   for (lxw_col_t c = 0; c < 3; ++c) check(worksheet_write_string(w.ws, 0, kProgressCol + c, names[c], w.fmt(head)), "progress");
   Style num;
   num.numFormat = "0.###";
+  num.center = true;
   lxw_row_t r = 1;
   for (const auto& [seconds, tally] : progress) {
     check(worksheet_write_number(w.ws, r, kProgressCol, seconds, w.fmt(num)), "progress");
