@@ -10,10 +10,29 @@ Evaluator::Evaluator(const rules::RuleSet& rules)
     : rules_(&rules), p_(&rules.problem()), days_(p_->days), tasks_(p_->taskCount()), history_(p_->maxHistory) {
   taskShift_.resize(static_cast<size_t>(tasks_));
   for (int t = 0; t < tasks_; ++t) taskShift_[static_cast<size_t>(t)] = p_->tasks[static_cast<size_t>(t)].shift;
-  shiftBuf_.assign(static_cast<size_t>(history_ + days_), kNoShift);
+  for (const auto& sh : p_->shifts) {
+    shiftStart_.push_back(sh.start);
+    shiftEnd_.push_back(sh.end);
+    shiftPaid_.push_back(sh.paidMinutes());
+  }
+  taskStart_.assign(static_cast<size_t>(tasks_), 0);
+  taskEnd_.assign(static_cast<size_t>(tasks_), 0);
+  taskPaid_.assign(static_cast<size_t>(tasks_), 0);
+  for (int t = 1; t < tasks_; ++t) {
+    const auto sh = static_cast<size_t>(taskShift_[static_cast<size_t>(t)]);
+    taskStart_[static_cast<size_t>(t)] = shiftStart_[sh];
+    taskEnd_[static_cast<size_t>(t)] = shiftEnd_[sh];
+    taskPaid_[static_cast<size_t>(t)] = shiftPaid_[sh];
+  }
+  const auto span = static_cast<size_t>(history_ + days_);
+  shiftBuf_.assign(span, kNoShift);
+  startBuf_.assign(span, 0);
+  endBuf_.assign(span, 0);
+  paidBuf_.assign(span, 0);
   coverScratch_.resize(static_cast<size_t>(days_ * tasks_));
   fairScratch_.resize(p_->staff.size());
   rowScratch_.resize(static_cast<size_t>(Move::kCapacity * days_));
+  tabulateCellRules();
   const size_t fairRules = rules.fairShares().size();
   fairCount_.resize(fairRules);
   fairSum_.resize(fairRules);
@@ -28,14 +47,60 @@ rules::RowView Evaluator::view(StaffIdx s, const TaskIdx* tasks) {
   const auto& hist = p_->staff[static_cast<size_t>(s)].history;
   const int h = static_cast<int>(hist.size());
   std::copy(hist.begin(), hist.end(), shiftBuf_.begin() + (history_ - h));
-  ShiftIdx* day0 = shiftBuf_.data() + history_;
-  for (int d = 0; d < days_; ++d) day0[d] = taskShift_[static_cast<size_t>(tasks[d])];
-  return rules::RowView{p_, s, tasks, day0, h, days_};
+  ShiftIdx* shifts = shiftBuf_.data() + history_;
+  int* starts = startBuf_.data() + history_;
+  int* ends = endBuf_.data() + history_;
+  int* paid = paidBuf_.data() + history_;
+  for (int d = -h; d < 0; ++d) {
+    const ShiftIdx sh = shifts[d];
+    const bool on = sh != kNoShift;
+    starts[d] = d * kMinutesPerDay + (on ? shiftStart_[static_cast<size_t>(sh)] : 0);
+    ends[d] = d * kMinutesPerDay + (on ? shiftEnd_[static_cast<size_t>(sh)] : 0);
+    paid[d] = on ? shiftPaid_[static_cast<size_t>(sh)] : 0;
+  }
+  // Period days: straight table reads per task, no branches (off reads zeros).
+  for (int d = 0; d < days_; ++d) {
+    const auto t = static_cast<size_t>(tasks[d]);
+    shifts[d] = taskShift_[t];
+    starts[d] = d * kMinutesPerDay + taskStart_[t];
+    ends[d] = d * kMinutesPerDay + taskEnd_[t];
+    paid[d] = taskPaid_[t];
+  }
+  return rules::RowView{p_, s, tasks, shifts, starts, ends, paid, h, days_};
 }
 
-Tally Evaluator::rowTally(const rules::RowView& row, std::vector<rules::Breach>* out) const {
+void Evaluator::tabulateCellRules() {
+  // Cell-local rules charge each cell on its own, so scoring a row that holds task t on every
+  // day and reading each breach's day gives the penalty of every (day, t) cell at once.
+  cellCost_.assign(static_cast<size_t>(p_->staffCount()) * static_cast<size_t>(days_) * static_cast<size_t>(tasks_), Tally{});
+  std::vector<TaskIdx> uniform(static_cast<size_t>(days_));
+  std::vector<rules::Breach> found;
+  for (StaffIdx s = 0; s < p_->staffCount(); ++s) {
+    if (rules_->cellRulesFor(s).empty()) continue;
+    for (TaskIdx t = 0; t < tasks_; ++t) {
+      std::fill(uniform.begin(), uniform.end(), t);
+      const rules::RowView row = view(s, uniform.data());
+      found.clear();
+      Tally ignored;
+      for (const rules::RowRule* rule : rules_->cellRulesFor(s)) rule->score(row, ignored, &found);
+      for (const auto& b : found) {
+        assert(b.days.size() == 1);
+        Tally& cell = cellCost_[(static_cast<size_t>(s) * static_cast<size_t>(days_) + static_cast<size_t>(b.days.front())) * static_cast<size_t>(tasks_) + static_cast<size_t>(t)];
+        (b.hard ? cell.hard : cell.soft) += b.penalty;
+      }
+    }
+  }
+}
+
+Tally Evaluator::cellSum(StaffIdx s, const TaskIdx* tasks) const {
   Tally t;
-  for (const rules::RowRule* rule : rules_->rulesFor(row.staff)) rule->score(row, t, out);
+  for (DayIdx d = 0; d < days_; ++d) t += cellCost(s, d, tasks[d]);
+  return t;
+}
+
+Tally Evaluator::sequenceTally(const rules::RowView& row) const {
+  Tally t;
+  for (const rules::RowRule* rule : rules_->sequenceRulesFor(row.staff)) rule->score(row, t, nullptr);
   return t;
 }
 
@@ -63,7 +128,7 @@ Tally Evaluator::score(const model::Roster& roster) {
     }
     total += fairTally(r, counts.data(), sum);
   }
-  for (StaffIdx s = 0; s < roster.staff; ++s) total += rowTally(view(s, roster.row(s)), nullptr);
+  for (StaffIdx s = 0; s < roster.staff; ++s) total += rowTally(view(s, roster.row(s)));
   countCover(roster, coverScratch_);
   for (DayIdx d = 0; d < days_; ++d)
     for (TaskIdx t = 1; t < tasks_; ++t)
@@ -73,7 +138,11 @@ Tally Evaluator::score(const model::Roster& roster) {
 
 std::vector<rules::Breach> Evaluator::explain(const model::Roster& roster) {
   std::vector<rules::Breach> out;
-  for (StaffIdx s = 0; s < roster.staff; ++s) rowTally(view(s, roster.row(s)), &out);
+  for (StaffIdx s = 0; s < roster.staff; ++s) {
+    const rules::RowView row = view(s, roster.row(s));
+    Tally ignored;
+    for (const rules::RowRule* rule : rules_->rulesFor(s)) rule->score(row, ignored, &out);
+  }
   countCover(roster, coverScratch_);
   for (DayIdx d = 0; d < days_; ++d)
     for (TaskIdx t = 1; t < tasks_; ++t)
@@ -94,9 +163,11 @@ std::vector<rules::Breach> Evaluator::explain(const model::Roster& roster) {
 void Evaluator::load(const model::Roster& roster) {
   roster_ = roster;
   rowTally_.resize(static_cast<size_t>(roster.staff));
+  rowCells_.resize(static_cast<size_t>(roster.staff));
   total_ = Tally{};
   for (StaffIdx s = 0; s < roster.staff; ++s) {
-    rowTally_[static_cast<size_t>(s)] = rowTally(view(s, roster_.row(s)), nullptr);
+    rowCells_[static_cast<size_t>(s)] = cellSum(s, roster_.row(s));
+    rowTally_[static_cast<size_t>(s)] = rowCells_[static_cast<size_t>(s)] + sequenceTally(view(s, roster_.row(s)));
     total_ += rowTally_[static_cast<size_t>(s)];
   }
   coverCount_.resize(static_cast<size_t>(days_ * tasks_));
@@ -131,16 +202,21 @@ Tally Evaluator::tryMove(const Move& move) {
   for (const CellChange& c : move) {
     int i = 0;
     while (i < pendingRowCount_ && pendingRows_[static_cast<size_t>(i)].staff != c.staff) ++i;
+    PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
     if (i == pendingRowCount_) {
-      pendingRows_[static_cast<size_t>(pendingRowCount_++)].staff = c.staff;
+      ++pendingRowCount_;
+      pr.staff = c.staff;
+      pr.cells = rowCells_[static_cast<size_t>(c.staff)];
       std::copy_n(roster_.row(c.staff), days_, rowScratch_.data() + i * days_);
     }
+    // Cell-local rules: swap the old cell's tabulated penalty for the new one's.
+    pr.cells += cellCost(c.staff, c.day, c.task) - cellCost(c.staff, c.day, roster_.at(c.staff, c.day));
     rowScratch_[static_cast<size_t>(i * days_ + c.day)] = c.task;
   }
   for (int i = 0; i < pendingRowCount_; ++i) {
     PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
     const rules::RowView row = view(pr.staff, rowScratch_.data() + i * days_);
-    pr.tally = rowTally(row, nullptr);
+    pr.tally = pr.cells + sequenceTally(row);
     delta += pr.tally - rowTally_[static_cast<size_t>(pr.staff)];
     for (size_t r = 0; r < fair.size(); ++r) {
       const int member = fair[r].memberIndex(pr.staff);
@@ -216,7 +292,11 @@ void Evaluator::commit() {
     cell = c.task;
   }
   coverTotal_ += pendingCover_;
-  for (int i = 0; i < pendingRowCount_; ++i) rowTally_[static_cast<size_t>(pendingRows_[static_cast<size_t>(i)].staff)] = pendingRows_[static_cast<size_t>(i)].tally;
+  for (int i = 0; i < pendingRowCount_; ++i) {
+    const PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
+    rowTally_[static_cast<size_t>(pr.staff)] = pr.tally;
+    rowCells_[static_cast<size_t>(pr.staff)] = pr.cells;
+  }
   const auto& fair = rules_->fairShares();
   for (size_t r = 0; r < fair.size(); ++r) {
     if (pendingFairCount_[r] == 0) continue;

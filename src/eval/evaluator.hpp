@@ -39,7 +39,14 @@ class Evaluator {
  private:
   /// Fills the shift buffer for person s from `tasks` and returns the row view.
   rules::RowView view(StaffIdx s, const TaskIdx* tasks);
-  Tally rowTally(const rules::RowView& row, std::vector<rules::Breach>* out) const;
+  /// Penalty of a row: sequence rules scored on the row, cell-local rules read from the table.
+  Tally rowTally(const rules::RowView& row) const { return cellSum(row.staff, row.tasks) + sequenceTally(row); }
+  Tally sequenceTally(const rules::RowView& row) const;
+  Tally cellSum(StaffIdx s, const TaskIdx* tasks) const;
+  void tabulateCellRules();
+  const Tally& cellCost(StaffIdx s, DayIdx d, TaskIdx t) const {
+    return cellCost_[(static_cast<size_t>(s) * static_cast<size_t>(days_) + static_cast<size_t>(d)) * static_cast<size_t>(tasks_) + static_cast<size_t>(t)];
+  }
   Tally fairTally(size_t rule, const int* counts, long sum) const;
   void countCover(const model::Roster& roster, std::vector<int>& counts) const;
 
@@ -47,13 +54,18 @@ class Evaluator {
   const model::Problem* p_;
   int days_, tasks_, history_;
   std::vector<ShiftIdx> taskShift_;  ///< shift of each task, kNoShift for off
+  std::vector<int> shiftStart_, shiftEnd_, shiftPaid_;  ///< per shift type, for history days
+  std::vector<int> taskStart_, taskEnd_, taskPaid_;     ///< per task (0 = off: all zero)
   std::vector<ShiftIdx> shiftBuf_;   ///< history + days
+  std::vector<int> startBuf_, endBuf_, paidBuf_;
+  std::vector<Tally> cellCost_;  ///< [(staff * days + day) * tasks + task]: cell-local rules' penalty
   std::vector<int> coverScratch_;
   std::vector<int> fairScratch_;
 
   // Loaded state.
   model::Roster roster_;
   std::vector<Tally> rowTally_;
+  std::vector<Tally> rowCells_;  ///< the cell-local part of rowTally_
   std::vector<int> coverCount_;                 ///< [day * tasks + task]
   std::vector<std::vector<int>> fairCount_;     ///< per fair-share rule, per member
   std::vector<long> fairSum_;
@@ -62,7 +74,7 @@ class Evaluator {
 
   // Pending move (from tryMove).
   Move pending_;
-  struct PendingRow { StaffIdx staff; Tally tally; };
+  struct PendingRow { StaffIdx staff; Tally tally; Tally cells; };
   std::array<PendingRow, Move::kCapacity> pendingRows_{};
   int pendingRowCount_ = 0;
   std::vector<TaskIdx> rowScratch_;  ///< up to kCapacity rows of days each

@@ -259,6 +259,7 @@ void loadStaff(LoadContext& ctx, const Field& f) {
       const SkillIdx i = ctx.skill(sk);
       if (person.holds(i)) sk.fail("skill listed twice");
       person.skills.push_back(i);
+      person.skillMask |= std::uint64_t{1} << i;
     }
     if (person.skills.empty()) skills.fail("a person needs at least one skill");
     p.staff.push_back(std::move(person));
@@ -373,6 +374,7 @@ model::Problem loadScenario(const std::string& path) {
   const std::vector<int> weekend = root.has("weekend") ? loadWeekend(root.get("weekend")) : std::vector<int>{5, 6};
   loadShifts(ctx, root.require("shifts"));
   loadSkills(ctx, root.require("skills"));
+  if (problem.skills.size() > 64) root.require("skills").fail("at most 64 skills are supported");
   if (root.has("holidays")) loadHolidays(ctx, root.get("holidays"));
   model::buildDerivedTables(problem, weekend);
   if (root.has("contracts")) loadContracts(ctx, root.get("contracts"));

@@ -5,10 +5,6 @@
 
 namespace rotaweave::model {
 
-bool Person::holds(SkillIdx skill) const {
-  return std::find(skills.begin(), skills.end(), skill) != skills.end();
-}
-
 std::string Problem::taskText(TaskIdx t, StaffIdx s) const {
   if (t == kOff) return "";
   const Task& task = tasks[static_cast<size_t>(t)];

@@ -51,9 +51,10 @@ struct Person {
   std::string name;
   int contract = -1;                ///< Index into Problem::contracts, -1 for none.
   std::vector<SkillIdx> skills;     ///< In the order listed; the first is the default role.
+  std::uint64_t skillMask = 0;      ///< Bit k set if the person holds skill k.
   std::vector<Request> requests;
   std::vector<ShiftIdx> history;    ///< Days before the period, oldest first; kNoShift = off.
-  bool holds(SkillIdx skill) const;
+  bool holds(SkillIdx skill) const { return (skillMask >> skill) & 1U; }
 };
 
 /// Cover needed for one (date, shift, skill); `defined` is false where no demand applies.

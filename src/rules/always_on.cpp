@@ -14,12 +14,11 @@ std::string cellText(const RowView& row, TaskIdx t) {
 
 void SkillRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
   const auto& p = *row.problem;
-  const auto& person = p.staff[static_cast<size_t>(row.staff)];
+  const std::uint64_t mask = p.staff[static_cast<size_t>(row.staff)].skillMask;
+  const model::Task* tasks = p.tasks.data();
   for (DayIdx d = 0; d < row.days; ++d) {
-    const TaskIdx t = row.tasks[d];
-    if (t == kOff) continue;
-    const SkillIdx skill = p.tasks[static_cast<size_t>(t)].skill;
-    if (person.holds(skill)) continue;
+    const SkillIdx skill = tasks[row.tasks[d]].skill;
+    if (skill < 0 || ((mask >> skill) & 1U)) continue;  // off, or a held skill
     charge(row, tally, out, kOne, {d, d}, [&] {
       return row.personId() + ": works " + row.shiftId(d) + " as " + p.skills[static_cast<size_t>(skill)] +
              " on " + row.date(d) + " but does not hold that skill";
@@ -29,8 +28,9 @@ void SkillRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out
 
 void AbsenceRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
   const auto& p = *row.problem;
+  const std::uint8_t* absent = &p.absent[p.cell(row.staff, 0)];
   for (DayIdx d = 0; d < row.days; ++d) {
-    if (!row.worked(d) || !p.absent[p.cell(row.staff, d)]) continue;
+    if (!absent[d] || !row.worked(d)) continue;
     charge(row, tally, out, kOne, {d, d}, [&] {
       const std::string& reason = p.absenceReason[p.cell(row.staff, d)];
       return row.personId() + ": works " + row.shiftId(d) + " on " + row.date(d) + ", a day of absence" +
@@ -41,8 +41,9 @@ void AbsenceRule::score(const RowView& row, Tally& tally, std::vector<Breach>* o
 
 void FixedRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
   const auto& p = *row.problem;
+  const TaskIdx* fixed = &p.fixed[p.cell(row.staff, 0)];
   for (DayIdx d = 0; d < row.days; ++d) {
-    const TaskIdx want = p.fixed[p.cell(row.staff, d)];
+    const TaskIdx want = fixed[d];
     if (want < 0 || want == row.tasks[d]) continue;
     charge(row, tally, out, kOne, {d, d}, [&] {
       return row.personId() + ": fixed to " + cellText(row, want) + " on " + row.date(d) + " but the roster has " +

@@ -13,20 +13,24 @@
 
 namespace rotaweave::rules {
 
-/// One person's row, with history in front: shift(d) is valid for -history <= d < days.
+/// One person's row, with history in front: the per-day arrays are valid for -history <= d < days.
+/// The evaluator fills them once per row, so rules read dense integers, never shift records.
 struct RowView {
   const model::Problem* problem = nullptr;
   StaffIdx staff = 0;
   const TaskIdx* tasks = nullptr;    ///< days entries.
-  const ShiftIdx* shifts = nullptr;  ///< Points at day 0 of a buffer that starts at -history.
+  const ShiftIdx* shifts = nullptr;  ///< Shift per day, kNoShift when off.
+  const int* starts = nullptr;       ///< Absolute start minute of the day's shift (from period start).
+  const int* ends = nullptr;         ///< Absolute end minute.
+  const int* paid = nullptr;         ///< Paid minutes, 0 when off.
   int history = 0;
   int days = 0;
 
   ShiftIdx shift(DayIdx d) const { return shifts[d]; }
   bool worked(DayIdx d) const { return shifts[d] != kNoShift; }
   const model::ShiftType& shiftType(DayIdx d) const { return problem->shifts[static_cast<size_t>(shifts[d])]; }
-  int startMinute(DayIdx d) const { return d * kMinutesPerDay + shiftType(d).start; }
-  int endMinute(DayIdx d) const { return d * kMinutesPerDay + shiftType(d).end; }
+  int startMinute(DayIdx d) const { return starts[d]; }
+  int endMinute(DayIdx d) const { return ends[d]; }
   const std::string& personId() const { return problem->staff[static_cast<size_t>(staff)].id; }
   std::string date(DayIdx d) const { return problem->dateText(d); }
   const std::string& shiftId(DayIdx d) const { return shiftType(d).id; }
@@ -48,6 +52,11 @@ class RowRule {
 
   /// Adds this rule's penalty for the row to `tally`; appends breaches to `out` if non-null.
   virtual void score(const RowView& row, Tally& tally, std::vector<Breach>* out) const = 0;
+
+  /// True for rules whose penalty is a sum of independent per-cell terms, each charged as one
+  /// breach on its own day (skill, absence, fixed, request, changes). The evaluator tabulates
+  /// those terms once per (person, day, task) and never re-scores such rules during search.
+  virtual bool cellLocal() const { return false; }
 
   const model::RuleSpec& spec() const { return spec_; }
   bool appliesTo(StaffIdx s) const { return spec_.inScope[static_cast<size_t>(s)] != 0; }

@@ -14,12 +14,6 @@ namespace rotaweave::rules {
     void score(const RowView& row, Tally& tally, std::vector<Breach>* out) const override; \
   }
 
-// Always on (always_on.cpp).
-ROTAWEAVE_ROW_RULE(SkillRule);
-ROTAWEAVE_ROW_RULE(AbsenceRule);
-ROTAWEAVE_ROW_RULE(FixedRule);
-ROTAWEAVE_ROW_RULE(RequestRule);
-ROTAWEAVE_ROW_RULE(ChangesRule);
 // Shift-to-shift transitions (sequence_rules.cpp).
 ROTAWEAVE_ROW_RULE(MinRestRule);
 ROTAWEAVE_ROW_RULE(ForbidSequenceRule);
@@ -40,6 +34,22 @@ ROTAWEAVE_ROW_RULE(MaxWeekendsRule);
 ROTAWEAVE_ROW_RULE(CompleteWeekendsRule);
 ROTAWEAVE_ROW_RULE(WeeklyRestRule);
 
+#define ROTAWEAVE_CELL_RULE(Name)                                                         \
+  class Name final : public RowRule {                                                     \
+   public:                                                                                \
+    using RowRule::RowRule;                                                               \
+    void score(const RowView& row, Tally& tally, std::vector<Breach>* out) const override; \
+    bool cellLocal() const override { return true; }                                      \
+  }
+
+// Always on, judged cell by cell (always_on.cpp).
+ROTAWEAVE_CELL_RULE(SkillRule);
+ROTAWEAVE_CELL_RULE(AbsenceRule);
+ROTAWEAVE_CELL_RULE(FixedRule);
+ROTAWEAVE_CELL_RULE(RequestRule);
+ROTAWEAVE_CELL_RULE(ChangesRule);
+
+#undef ROTAWEAVE_CELL_RULE
 #undef ROTAWEAVE_ROW_RULE
 
 /// Number of weekends in the period on which the row has any shift (shared with fair-share).

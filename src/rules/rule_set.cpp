@@ -45,7 +45,8 @@ std::unique_ptr<RowRule> makeRowRule(const model::RuleSpec& spec) {
 }
 
 RuleSet::RuleSet(const model::Problem& problem)
-    : problem_(&problem), perStaff_(problem.staff.size()), cover_(problem) {
+    : problem_(&problem), perStaff_(problem.staff.size()), sequence_(problem.staff.size()), cell_(problem.staff.size()),
+      cover_(problem) {
   for (const auto& spec : problem.rules) {
     if (spec.kind == model::RuleKind::FairShare) {
       fairShares_.emplace_back(problem, spec);
@@ -54,7 +55,10 @@ RuleSet::RuleSet(const model::Problem& problem)
     auto rule = makeRowRule(spec);
     if (!rule) continue;  // cover is judged from counts, not rows
     for (StaffIdx s = 0; s < problem.staffCount(); ++s)
-      if (rule->appliesTo(s)) perStaff_[static_cast<size_t>(s)].push_back(rule.get());
+      if (rule->appliesTo(s)) {
+        perStaff_[static_cast<size_t>(s)].push_back(rule.get());
+        (rule->cellLocal() ? cell_ : sequence_)[static_cast<size_t>(s)].push_back(rule.get());
+      }
     rowRules_.push_back(std::move(rule));
   }
 }

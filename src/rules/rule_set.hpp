@@ -20,15 +20,18 @@ class RuleSet {
   explicit RuleSet(const model::Problem& problem);
 
   const model::Problem& problem() const { return *problem_; }
-  /// Row rules that apply to person s, in declaration order.
+  /// Row rules that apply to person s, in declaration order (cell-local ones included).
   const std::vector<const RowRule*>& rulesFor(StaffIdx s) const { return perStaff_[static_cast<size_t>(s)]; }
+  /// The subsets of rulesFor(s) that are and are not cell-local.
+  const std::vector<const RowRule*>& sequenceRulesFor(StaffIdx s) const { return sequence_[static_cast<size_t>(s)]; }
+  const std::vector<const RowRule*>& cellRulesFor(StaffIdx s) const { return cell_[static_cast<size_t>(s)]; }
   const CoverRule& cover() const { return cover_; }
   const std::vector<FairShareRule>& fairShares() const { return fairShares_; }
 
  private:
   const model::Problem* problem_;
   std::vector<std::unique_ptr<RowRule>> rowRules_;
-  std::vector<std::vector<const RowRule*>> perStaff_;
+  std::vector<std::vector<const RowRule*>> perStaff_, sequence_, cell_;
   CoverRule cover_;
   std::vector<FairShareRule> fairShares_;
 };

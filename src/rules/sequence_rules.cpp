@@ -1,4 +1,5 @@
 /// @brief Transition rules: rest between shifts and forbidden day-to-day patterns.
+#include <algorithm>
 #include <string>
 
 #include "rules/row_rules.hpp"
@@ -27,18 +28,19 @@ void MinRestRule::score(const RowView& row, Tally& tally, std::vector<Breach>* o
 }
 
 void ForbidSequenceRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
-  const auto& seq = spec().sequence;
-  const int len = static_cast<int>(seq.size());
-  for (DayIdx a = -row.history; a + len - 1 < row.days; ++a) {
-    if (a + len - 1 < 0) continue;  // wholly in history
-    bool match = true;
-    for (int i = 0; i < len && match; ++i) match = row.shift(a + i) == seq[static_cast<size_t>(i)];
-    if (!match) continue;
+  const ShiftIdx* seq = spec().sequence.data();
+  const int len = static_cast<int>(spec().sequence.size());
+  const ShiftIdx* sh = row.shifts;
+  for (DayIdx a = std::max(-row.history, 1 - len); a + len - 1 < row.days; ++a) {  // skip windows wholly in history
+    if (sh[a] != seq[0]) continue;
+    int i = 1;
+    while (i < len && sh[a + i] == seq[i]) ++i;
+    if (i < len) continue;
     charge(row, tally, out, kOne, {a, a + len - 1}, [&] {
       std::string pattern;
-      for (int i = 0; i < len; ++i) {
-        if (i) pattern += ", ";
-        pattern += row.worked(a + i) ? row.shiftId(a + i) : std::string("off");
+      for (int k = 0; k < len; ++k) {
+        if (k) pattern += ", ";
+        pattern += row.worked(a + k) ? row.shiftId(a + k) : std::string("off");
       }
       return row.personId() + ": " + pattern + " from " + row.date(a) + " to " + row.date(a + len - 1) +
              " is a forbidden sequence";

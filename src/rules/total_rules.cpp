@@ -7,7 +7,7 @@
 namespace rotaweave::rules {
 namespace {
 
-int paidOn(const RowView& row, DayIdx d) { return row.worked(d) ? row.shiftType(d).paidMinutes() : 0; }
+int paidOn(const RowView& row, DayIdx d) { return row.paid[d]; }
 
 int periodMinutes(const RowView& row) {
   int total = 0;

@@ -1,7 +1,6 @@
 /// @brief Weekend rules and weekly rest.
 #include <algorithm>
 #include <array>
-#include <climits>
 #include <string>
 
 #include "rules/row_rules.hpp"
@@ -64,23 +63,25 @@ void WeeklyRestRule::score(const RowView& row, Tally& tally, std::vector<Breach>
   const int blockDays = spec().count > 0 ? spec().count : 7;
   const int blocks = std::min(kMaxBlocks, (row.days + blockDays - 1) / blockDays);
   const int blockLen = blockDays * kMinutesPerDay;
-  std::array<int, kMaxBlocks> best{};
+  std::array<int, kMaxBlocks> best;  // only the first `blocks` entries are used
+  std::fill_n(best.begin(), blocks, 0);
 
   // Walk the free gaps between worked shifts; the time before the first known shift and after
   // the last one is unbounded. Each gap counts, whole, for every block it overlaps.
-  auto gap = [&](long from, long to) {
-    const long len = std::min<long>(to - from, INT_MAX);
-    const int firstBlock = static_cast<int>(std::max<long>(0, from / blockLen));
-    for (int k = firstBlock; k < blocks && static_cast<long>(k) * blockLen < to; ++k)
-      if (static_cast<long>(k + 1) * blockLen > from) best[static_cast<size_t>(k)] = std::max(best[static_cast<size_t>(k)], static_cast<int>(len));
+  constexpr int kOpen = 1 << 29;  // far beyond any period, and still no overflow in to - from
+  auto gap = [&](int from, int to) {
+    const int len = to - from;
+    const int first = from <= 0 ? 0 : from / blockLen;
+    const int last = std::min(blocks - 1, (to - 1) / blockLen);
+    for (int k = first; k <= last; ++k) best[static_cast<size_t>(k)] = std::max(best[static_cast<size_t>(k)], len);
   };
-  long freeSince = LONG_MIN / 2;
+  int freeSince = -kOpen;
   for (DayIdx d = -row.history; d < row.days; ++d) {
     if (!row.worked(d)) continue;
-    gap(freeSince, row.startMinute(d));
-    freeSince = std::max<long>(freeSince, row.endMinute(d));
+    if (row.starts[d] > 0 || freeSince > 0) gap(freeSince, row.starts[d]);
+    freeSince = std::max(freeSince, row.ends[d]);
   }
-  gap(freeSince, LONG_MAX / 2);
+  gap(freeSince, kOpen);
 
   for (int k = 0; k < blocks; ++k) {
     const int longest = best[static_cast<size_t>(k)];
