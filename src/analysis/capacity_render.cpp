@@ -151,7 +151,8 @@ std::string renderCapacityText(const CapacityReport& r, const Problem& p) {
   out << "  Lower bound on the hard penalty: " << points(b.hard);
   if (b.hard > 0)
     out << " (cover: " << b.coverUnits << " person-shift" << (b.coverUnits == 1 ? "" : "s") << " of minimum cover cannot be filled, "
-        << points(b.coverHard) << "; contract hours: " << points(b.contractHard) << ")";
+        << points(b.coverHard) << "; contract hours: " << points(b.contractHard)
+        << (b.contractHard > 0 ? ", the cheaper of the missing hours and calling the person in on days away" : "") << ")";
   if (r.roster) out << "; this roster has " << points(r.roster->hard);
   out << "\n";
   if (r.roster) {
