@@ -79,6 +79,19 @@ std::string helpText() {
 
 }  // namespace
 
+std::string optionsMarkdown() {
+  std::ostringstream out;
+  out << "# Solver options\n\n"
+      << "Generated from the parameter table in `src/search/solver_options.cpp` by `rotaweave --options-markdown`;\n"
+      << "a test keeps this page equal to it. The same table drives `--help` and the range checks.\n\n"
+      << "| option | meaning | default | range |\n| --- | --- | --- | --- |\n";
+  for (const auto& p : search::parameterTable())
+    out << "| `--" << p.name << "` | " << p.help << " | " << p.defaultValue << " | " << p.min << " to " << p.max << " |\n";
+  out << "| `--selection` | parent selection: tournament, rank, sus (stochastic universal sampling) or roulette | tournament | |\n"
+      << "| `--quiet` | no progress output on stderr | off | |\n";
+  return out.str();
+}
+
 Parsed parseCommandLine(int argc, char** argv) {
   std::vector<std::string> args(argv + 1, argv + argc);
   if (args.empty()) throw UsageError(std::string("no command given\n") + kUsage);
@@ -86,6 +99,7 @@ Parsed parseCommandLine(int argc, char** argv) {
   args.erase(args.begin());
   if (command == "--help" || command == "-h" || command == "help") return HelpArgs{helpText()};
   if (command == "--version") return HelpArgs{std::string("rotaweave ") + kVersion + "\n"};
+  if (command == "--options-markdown") return HelpArgs{optionsMarkdown()};
 
   if (command == "check") {
     auto desc = common();

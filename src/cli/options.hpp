@@ -17,6 +17,9 @@ struct HelpArgs {
 
 using Parsed = std::variant<HelpArgs, CheckArgs, app::SolveRequest, app::ReplanRequest>;
 
+/// docs/options.md, generated from the solver parameter table.
+std::string optionsMarkdown();
+
 /// Throws UsageError on bad usage.
 Parsed parseCommandLine(int argc, char** argv);
 
