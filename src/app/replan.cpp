@@ -1,38 +1,117 @@
 /// @brief `replan`: keep the published days before --from, re-plan the rest with few changes.
 #include <algorithm>
+#include <fstream>
+#include <iostream>
+#include <set>
+#include <sstream>
 
+#include "analysis/capacity.hpp"
 #include "app/commands.hpp"
-#include "app/pipeline.hpp"
+#include "app/progress.hpp"
+#include "eval/evaluator.hpp"
+#include "io/atomic_file.hpp"
+#include "io/csv.hpp"
 #include "io/input_error.hpp"
+#include "io/output_writer.hpp"
 #include "io/roster_csv.hpp"
 #include "io/scenario_loader.hpp"
+#include "report/changes.hpp"
+#include "search/stop_signal.hpp"
 
 namespace rotaweave::app {
 namespace {
 
-/// Parses STAFF:DATE or STAFF:DATE..DATE and marks the days absent.
-void applyAbsence(model::Problem& p, const std::string& text) {
+std::string trimmed(const std::string& s) {
+  const size_t a = s.find_first_not_of(" \t");
+  if (a == std::string::npos) return "";
+  return s.substr(a, s.find_last_not_of(" \t") - a + 1);
+}
+
+std::string periodText(const model::Problem& p) { return p.dateText(0) + " to " + p.dateText(p.days - 1); }
+
+/// "a, b and 3 more": a short list of ids for a message.
+std::string someIds(const std::vector<std::string>& ids) {
+  std::string out;
+  const size_t shown = std::min<size_t>(ids.size(), 5);
+  for (size_t i = 0; i < shown; ++i) out += (i ? ", " : "") + ids[i];
+  if (ids.size() > shown) out += " and " + std::to_string(ids.size() - shown) + " more";
+  return out;
+}
+
+/// Before the cell-by-cell reading: is this roster made for the scenario's period and staff?
+/// A roster for another month or another team gets one message that says so, rather than an
+/// error about its first odd cell.
+void checkPublishedFits(const std::string& path, const model::Problem& p) {
+  std::ifstream in(path, std::ios::binary);
+  if (!in) throw io::InputError(path, 0, 0, "cannot open the published roster; check the path given to --roster");
+  std::stringstream buffer;
+  buffer << in.rdbuf();
+  const auto rows = io::parseCsv(buffer.str(), path);
+  if (rows.empty()) return;  // readRosterCsv explains
+  const auto& header = rows.front().cells;
+  if (header.size() >= 2) {
+    const auto first = model::parseIsoDate(trimmed(header[1]));
+    const auto last = model::parseIsoDate(trimmed(header.back()));
+    if (first && last && (*first != p.start || *last != p.start + p.days - 1))
+      throw io::InputError(path, rows.front().line, 0,
+                           "the published roster covers " + model::formatIsoDate(*first) + " to " + model::formatIsoDate(*last) +
+                               " but the scenario's period is " + periodText(p) +
+                               "; re-plan with the scenario the roster was published for");
+  }
+  std::vector<std::string> unknown, missing;
+  std::set<std::string> listed;
+  for (size_t r = 1; r < rows.size(); ++r) {
+    if (rows[r].cells.size() == 1 && trimmed(rows[r].cells[0]).empty()) continue;
+    const std::string id = trimmed(rows[r].cells[0]);
+    listed.insert(id);
+    if (p.findStaff(id) < 0) unknown.push_back(id);
+  }
+  for (const auto& person : p.staff)
+    if (!listed.count(person.id)) missing.push_back(person.id);
+  // One or two odd ids are likely typos: readRosterCsv names the line and suggests a spelling.
+  if (!unknown.empty() && unknown.size() + missing.size() >= 3)
+    throw io::InputError(path, 0, 0,
+                         "the published roster is for a different staff list: " + std::to_string(unknown.size()) +
+                             " of its people are not in the scenario (" + someIds(unknown) + ")" +
+                             (missing.empty() ? std::string() : " and " + std::to_string(missing.size()) + " of the scenario's staff have no row (" + someIds(missing) + ")") +
+                             "; use the scenario the roster was published for, or add the new staff to both");
+}
+
+/// Parses STAFF:DATE[..DATE][:REASON] and marks the days from `first` on absent.
+void applyAbsence(model::Problem& p, const std::string& text, DayIdx first) {
+  auto wrong = [&](const std::string& why) { throw io::InputError("--absence " + text, 0, 0, why); };
   auto bad = [&](const std::string& why) {
-    throw io::InputError("--absence " + text, 0, 0, why + "; write STAFF:YYYY-MM-DD or STAFF:YYYY-MM-DD..YYYY-MM-DD");
+    wrong(why + "; write STAFF:YYYY-MM-DD or STAFF:YYYY-MM-DD..YYYY-MM-DD (optionally :REASON at the end)");
   };
   const size_t colon = text.find(':');
   if (colon == std::string::npos) bad("missing ':' between the staff id and the date");
-  const std::string id = text.substr(0, colon), range = text.substr(colon + 1);
+  const std::string id = text.substr(0, colon);
+  std::string range = text.substr(colon + 1), reason = "reported at replan";
+  if (const size_t second = range.find(':'); second != std::string::npos) {
+    reason = trimmed(range.substr(second + 1));
+    range = range.substr(0, second);
+    if (reason.empty()) bad("empty reason after the second ':'");
+  }
   const StaffIdx s = p.findStaff(id);
   if (s < 0) {
     std::vector<std::string> ids;
     for (const auto& person : p.staff) ids.push_back(person.id);
-    bad("unknown staff id '" + id + "'" + io::didYouMean(id, ids));
+    wrong("unknown staff id '" + id + "'" + io::didYouMean(id, ids) + "; use an id from the scenario's staff list");
   }
   const size_t dots = range.find("..");
   const auto from = model::parseIsoDate(range.substr(0, dots));
   const auto to = dots == std::string::npos ? from : model::parseIsoDate(range.substr(dots + 2));
   if (!from || !to) bad("invalid date in '" + range + "'");
   if (*to < *from) bad("the absence ends before it starts");
-  if (*from < p.start || *to >= p.start + p.days) bad("the absence is outside the period " + p.dateText(0) + " to " + p.dateText(p.days - 1));
-  for (model::DateSerial d = *from; d <= *to; ++d) {
+  if (*from < p.start || *to >= p.start + p.days) wrong("the absence is outside the period " + periodText(p));
+  if (*to < p.start + first)
+    wrong("the absence ends before --from " + p.dateText(first) + "; days before --from are kept as published, so there is nothing to re-plan");
+  if (*from < p.start + first)
+    std::cerr << "note: --absence " << text << ": days before --from " << p.dateText(first)
+              << " are kept as published; the absence is applied from " << p.dateText(first) << "\n";
+  for (model::DateSerial d = std::max(*from, p.start + first); d <= *to; ++d) {
     p.absent[p.cell(s, d - p.start)] = 1;
-    p.absenceReason[p.cell(s, d - p.start)] = "absence given to replan";
+    p.absenceReason[p.cell(s, d - p.start)] = reason;
   }
 }
 
@@ -40,17 +119,19 @@ void applyAbsence(model::Problem& p, const std::string& text) {
 
 Outcome replan(const ReplanRequest& request) {
   model::Problem problem = io::loadScenario(request.solve.scenario);
-  const model::Roster published = io::readRosterCsv(request.publishedRoster, problem);
   const auto from = model::parseIsoDate(request.from);
   if (!from) throw io::InputError("--from " + request.from, 0, 0, "invalid date; write YYYY-MM-DD");
   if (*from < problem.start || *from >= problem.start + problem.days)
-    throw io::InputError("--from " + request.from, 0, 0, "the date is outside the period " + problem.dateText(0) + " to " +
-                                                            problem.dateText(problem.days - 1));
-  for (const auto& a : request.absences) applyAbsence(problem, a);
-
+    throw io::InputError("--from " + request.from, 0, 0, "the date is outside the period " + periodText(problem) +
+                                                            "; give the first day to re-plan, inside the period");
   const DayIdx first = *from - problem.start;
+  checkPublishedFits(request.publishedRoster, problem);
+  const model::Roster published = io::readRosterCsv(request.publishedRoster, problem);
+  for (const auto& a : request.absences) applyAbsence(problem, a, first);
+
   problem.published = model::Published{published.cells, first};
-  // Days before --from are frozen exactly as published.
+  // Days before --from are frozen exactly as published, even where they break a rule:
+  // they are reported as they are and the search cannot touch them.
   for (StaffIdx s = 0; s < problem.staffCount(); ++s)
     for (DayIdx d = 0; d < first; ++d) problem.fixed[problem.cell(s, d)] = published.at(s, d);
   const bool listed = std::any_of(problem.rules.begin(), problem.rules.end(),
@@ -75,7 +156,28 @@ Outcome replan(const ReplanRequest& request) {
       if (problem.fixed[problem.cell(s, d)] >= 0) seed.at(s, d) = problem.fixed[problem.cell(s, d)];
       else if (problem.absent[problem.cell(s, d)]) seed.at(s, d) = kOff;
     }
-  return searchAndWrite(problem, {seed}, request.solve, "replan");
+
+  // Search, then report with the changes against the published roster, then write.
+  const SolveRequest& solve = request.solve;
+  io::ensureDirectory(solve.out);  // fail before a long search, not after it
+  const rules::RuleSet ruleSet(problem);
+  search::installStopSignals();
+  ProgressPrinter printer(solve.options.quiet);
+  const search::SolveResult result = search::solve(ruleSet, solve.options, {seed}, std::ref(printer));
+  printer.finish(result);
+  report::RunInfo run{"replan", result.seed, result.islands, result.threads, result.generations,
+                      result.seconds, result.stopReason, result.history};
+
+  eval::Evaluator evaluator(ruleSet);
+  Outcome outcome;
+  outcome.report = report::buildReport(problem, result.best, evaluator.explain(result.best), std::move(run));
+  analysis::CapacityReport capacity = analysis::analyseCapacity(problem);
+  analysis::compareWithRoster(capacity, problem, result.best, outcome.report.breaches);
+  outcome.report.capacity = std::move(capacity);
+  outcome.report.changes = report::computeChanges(problem, result.best);
+  io::writeStandardOutputs(solve.out, io::OutputBundle{problem, result.best, outcome.report});
+  outcome.exitCode = outcome.report.hardCount > 0 ? 1 : 0;
+  return outcome;
 }
 
 }  // namespace rotaweave::app

@@ -2,6 +2,7 @@
 #include "io/output_writer.hpp"
 
 #include "io/atomic_file.hpp"
+#include "io/changes_csv.hpp"
 #include "io/ics_writer.hpp"
 #include "io/report_json.hpp"
 #include "io/roster_csv.hpp"
@@ -37,6 +38,7 @@ class TextWriter final : public OutputWriter {
 std::vector<std::unique_ptr<OutputWriter>> standardWriters() {
   std::vector<std::unique_ptr<OutputWriter>> writers;
   writers.push_back(std::make_unique<CsvWriter>());
+  writers.push_back(std::make_unique<ChangesCsvWriter>());
   writers.push_back(std::make_unique<JsonWriter>());
   writers.push_back(std::make_unique<TextWriter>());
   writers.push_back(std::make_unique<XlsxWriter>());

@@ -59,6 +59,17 @@ std::string reportJson(const report::Report& r, const model::Problem& p) {
         << ", \"message\": " << jsonString(b.message) << "}";
   }
   out << (r.breaches.empty() ? "],\n" : "\n  ],\n");
+  if (r.changes) {
+    out << "  \"changes\": {\"cells\": " << r.changes->cellCount() << ", \"people\": " << r.changes->people << ", \"from\": \""
+        << p.dateText(r.changes->from) << "\", \"list\": [";
+    for (size_t i = 0; i < r.changes->cells.size(); ++i) {
+      const auto& c = r.changes->cells[i];
+      out << (i ? ",\n    " : "\n    ") << "{\"staff\": " << jsonString(p.staff[static_cast<size_t>(c.staff)].id) << ", \"date\": \""
+          << p.dateText(c.day) << "\", \"was\": " << jsonString(report::changeCellText(p, c.was, c.staff))
+          << ", \"now\": " << jsonString(report::changeCellText(p, c.now, c.staff)) << ", \"reason\": " << jsonString(c.reason) << "}";
+    }
+    out << (r.changes->cells.empty() ? "]},\n" : "\n  ]},\n");
+  }
   if (r.capacity) out << "  \"capacity\": " << analysis::renderCapacityJson(*r.capacity, p) << ",\n";
   out << "  \"caution\": " << jsonString(report::cautionText()) << "\n}\n";
   return out.str();

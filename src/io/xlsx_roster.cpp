@@ -6,6 +6,7 @@
 #include <vector>
 
 #include "io/xlsx_sheets.hpp"
+#include "report/changes.hpp"
 
 namespace rotaweave::io::xlsx {
 namespace {
@@ -67,6 +68,7 @@ MarkMap collectMarks(const OutputBundle& b, const Layout& l) {
     for (const auto& cell : cells) {
       Marks& m = marks[cell];
       m.messages.push_back(line);
+      if (br.kind == "changes") continue;  // shown by the changed-cell border, not as a breach mark
       (br.hard ? m.hard : m.soft) = true;
     }
   }
@@ -75,7 +77,7 @@ MarkMap collectMarks(const OutputBundle& b, const Layout& l) {
 
 /// Adds the breach border to a style.
 Style marked(Style s, const Marks* m) {
-  if (!m) return s;
+  if (!m || (!m->hard && !m->soft)) return s;
   s.border = m->hard ? LXW_BORDER_THICK : LXW_BORDER_MEDIUM;
   s.borderColour = m->hard ? kHardColour : kSoftColour;
   s.bold = s.bold || m->hard;
@@ -190,6 +192,10 @@ void writePerson(Book& bk, lxw_worksheet* ws, const Layout& l, const MarkMap& ma
     } else if (p.weekend[di]) {
       cell.fill = kWeekendFill;
     }
+    if (report::isChanged(p, r, s, d)) {  // replan: differs from the published roster
+      cell.border = LXW_BORDER_DOUBLE;
+      cell.borderColour = kChangedColour;
+    }
     lxw_format* fmt = f.get(marked(cell, markAt(dayCol(d))));
     const std::string text = p.taskText(t, s);
     if (text.empty()) check(worksheet_write_blank(ws, row, dayCol(d), fmt), "roster cell");
@@ -270,6 +276,13 @@ void writeLegend(Book& bk, lxw_worksheet* ws, lxw_row_t row) {
   soft.border = LXW_BORDER_MEDIUM;
   soft.borderColour = kSoftColour;
   item(soft, "", "Breaks a soft rule (preference, fairness, target cover); see the cell comment");
+  if (bk.data.report.changes) {
+    Style changed;
+    changed.center = true;
+    changed.border = LXW_BORDER_DOUBLE;
+    changed.borderColour = kChangedColour;
+    item(changed, "", "Changed against the published roster (see the Changes sheet)");
+  }
   item(Style{}, "", "Cells show the shift id, with /skill where the person holds several skills; empty = off");
 }
 
@@ -314,7 +327,7 @@ void writeRosterSheet(Book& bk) {
   const lxw_row_t legendRow = personRow(p.staffCount()) + 1;
   writeLegend(bk, ws, legendRow);
   setColumns(bk, ws, l);
-  setPrint(ws, l, legendRow + static_cast<lxw_row_t>(p.shifts.size()) + 7);
+  setPrint(ws, l, legendRow + static_cast<lxw_row_t>(p.shifts.size()) + 8);
   worksheet_set_comments_author(ws, const_cast<char*>("rotaweave"));
   worksheet_activate(ws);
 }

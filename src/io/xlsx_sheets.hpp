@@ -60,6 +60,7 @@ inline constexpr lxw_color_t kHardColour = 0xC0392B;   // red
 inline constexpr lxw_color_t kSoftColour = 0xE08E0B;   // amber
 inline constexpr lxw_color_t kShortFill = 0xF8D7D3;    // pale red
 inline constexpr lxw_color_t kTargetFill = 0xFCEBC7;   // pale amber
+inline constexpr lxw_color_t kChangedColour = 0x1F5FBF; // blue: a cell changed by replan
 
 /// The fill colour of a shift: its scenario colour, or one of our defaults.
 lxw_color_t shiftColour(const model::Problem& p, ShiftIdx shift);
@@ -76,5 +77,7 @@ void writeRosterSheet(Book& book);
 void writeCoverSheet(Book& book);
 void writeViolationsSheet(Book& book);
 void writeSummarySheet(Book& book);
+/// Only when the report carries re-plan changes.
+void writeChangesSheet(Book& book);
 
 }  // namespace rotaweave::io::xlsx

@@ -132,6 +132,7 @@ void XlsxWriter::write(const std::filesystem::path& dir, const OutputBundle& bun
   xlsx::writeCoverSheet(book);
   xlsx::writeViolationsSheet(book);
   xlsx::writeSummarySheet(book);
+  xlsx::writeChangesSheet(book);
 
   lxw_workbook* finished = guard.book;
   guard.book = nullptr;

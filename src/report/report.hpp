@@ -9,6 +9,7 @@
 #include "analysis/capacity.hpp"
 #include "model/problem.hpp"
 #include "model/roster.hpp"
+#include "report/changes.hpp"
 #include "rules/breach.hpp"
 
 namespace rotaweave::report {
@@ -50,6 +51,7 @@ struct Report {
   std::vector<PersonSummary> byPerson; ///< One per person, in staff order.
   RunInfo run;
   std::optional<analysis::CapacityReport> capacity;  ///< What the staff can cover at best, set against this roster.
+  std::optional<ChangeSummary> changes;  ///< replan only: cells changed against the published roster.
 };
 
 Report buildReport(const model::Problem& problem, const model::Roster& roster, std::vector<rules::Breach> breaches,

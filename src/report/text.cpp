@@ -44,6 +44,7 @@ std::string renderSummary(const Report& r) {
       << "soft violations: " << soft << " (penalty " << pointsText(r.total.soft) << ")\n";
   for (const auto& s : r.byRule)
     out << "  " << pad(s.hard ? "hard" : "soft", 5) << pad(s.ruleId, 28) << s.count << (s.count == 1 ? " breach" : " breaches") << "\n";
+  if (r.changes) out << "changes against the published roster: " << r.changes->cellCount() << " cells, " << r.changes->people << " people\n";
   return out.str();
 }
 
@@ -74,6 +75,8 @@ std::string renderText(const Report& r, const model::Problem& p) {
         << pad(std::to_string(ps.softCount) + " soft", 9) << pad(hoursOf(ps.paidMinutes), 10)
         << pad(std::to_string(ps.shiftsWorked) + " shifts", 11) << ps.weekendsWorked << " weekends\n";
   }
+
+  if (r.changes) out << "\n" << renderChangesText(*r.changes, p);
 
   if (r.capacity) out << "\nCAPACITY (what the staff on hand can cover at best, whatever the roster)\n" << analysis::renderCapacityText(*r.capacity, p);
 
