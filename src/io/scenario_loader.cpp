@@ -79,6 +79,8 @@ namespace {
 using detail::LoadContext;
 constexpr int kMaxDays = 400;
 constexpr int kMaxHistory = 60;
+constexpr size_t kMaxTasks = 2000;
+constexpr size_t kMaxStaff = 5000;
 
 void loadPeriod(LoadContext& ctx, const Field& f) {
   f.allowOnly({"start", "end"});
@@ -244,6 +246,8 @@ void loadStaff(LoadContext& ctx, const Field& f) {
   auto& p = ctx.problem;
   auto items = f.items();
   if (items.empty()) f.fail("the staff list is empty; add at least one person");
+  if (items.size() > kMaxStaff)
+    f.fail(std::to_string(items.size()) + " people; at most " + std::to_string(kMaxStaff) + " are supported: split the roster by unit");
   // First pass: ids and skills, so later entries can refer to any person.
   for (const Field& item : items) {
     item.allowOnly({"id", "name", "contract", "skills", "absences", "requests", "fixed", "history"});
@@ -374,6 +378,11 @@ model::Problem loadScenario(const std::string& path) {
   const std::vector<int> weekend = root.has("weekend") ? loadWeekend(root.get("weekend")) : std::vector<int>{5, 6};
   loadShifts(ctx, root.require("shifts"));
   loadSkills(ctx, root.require("skills"));
+  // Each (shift, role) pair is a task with a 16-bit index, and cover is kept per day and task.
+  if (problem.shifts.size() * problem.skills.size() > kMaxTasks)
+    root.require("skills").fail(std::to_string(problem.shifts.size()) + " shifts x " + std::to_string(problem.skills.size()) +
+                                " skills make too many (shift, role) pairs; at most " + std::to_string(kMaxTasks) +
+                                " are supported: merge shifts or skills");
   if (problem.skills.size() > 64) root.require("skills").fail("at most 64 skills are supported");
   if (root.has("holidays")) loadHolidays(ctx, root.get("holidays"));
   model::buildDerivedTables(problem, weekend);
