@@ -7,6 +7,8 @@
 #include <set>
 #include <sstream>
 
+#include <yaml-cpp/depthguard.h>
+
 namespace rotaweave::io {
 namespace {
 
@@ -42,6 +44,10 @@ YAML::Node Field::parseFile(const std::string& file) {
     throw InputError(file, line, 0, "the file is not valid UTF-8; save it as UTF-8 text");
   try {
     return YAML::Load(text);
+  } catch (const YAML::DeepRecursion& e) {
+    throw InputError(file, e.mark.line + 1, e.mark.column + 1,
+                     "YAML nested too deeply (brackets or indentation more than " + std::to_string(e.depth()) +
+                         " levels); a scenario needs only a few levels");
   } catch (const YAML::Exception& e) {
     throw InputError(file, e.mark.line + 1, e.mark.column + 1,
                      "YAML syntax error: " + e.msg + "; check brackets, quotes and indentation (spaces, not tabs) here or just above");
@@ -98,10 +104,12 @@ void Field::allowOnly(const std::vector<std::string>& allowed) const {
     if (ok) continue;
     std::string list;
     for (const auto& a : allowed) list += (list.empty() ? "" : ", ") + a;
-    Field keyAt(node_, path_, file_);
+    const std::string message = "unknown key " + quoted(key) + didYouMean(key, allowed) + "; allowed keys: " + list;
+    // Point at the key itself. (Never assign one YAML::Node to another here: that rewrites
+    // the node's content, which would free the map being iterated.)
     for (const auto& kv : node_)
-      if (kv.first.Scalar() == key) keyAt = Field(kv.first, path_, file_);
-    keyAt.fail("unknown key " + quoted(key) + didYouMean(key, allowed) + "; allowed keys: " + list);
+      if (kv.first.Scalar() == key) Field(kv.first, path_, file_).fail(message);
+    fail(message);
   }
 }
 
