@@ -10,11 +10,13 @@
 namespace rotaweave::search {
 
 Island::Island(const rules::RuleSet& rules, const Eligibility& eligibility, const SolverOptions& options, std::uint64_t seed)
-    : eligibility_(&eligibility), options_(options), ev_(rules), rng_(seed) {}
+    : eligibility_(&eligibility), options_(options), ev_(rules), rng_(seed) {
+  lateScratch_.late.resize(50);
+}
 
 void Island::improve(Individual& ind) {
   ev_.load(ind.genome);
-  hillClimb(*eligibility_, ev_, rng_, options_.localSearchMoves);
+  lateAcceptance(*eligibility_, ev_, rng_, options_.localSearchMoves, lateScratch_);
   ind.genome.cells = ev_.roster().cells;  // same size: no allocation
   ind.score = ev_.total();
 }
@@ -67,10 +69,9 @@ void Island::step() {
     } else {
       child.genome.cells = a.genome.cells;
     }
-    // 4 - Mutation: per-cell reassignment plus an occasional swap.
+    // 4 - Mutation: per-cell reassignment plus a few neighbourhood moves.
     reassignMutation(*eligibility_, child.genome, options_.mutationRate, rng_);
-    if (rng_.chance(0.5)) sameDaySwap(*eligibility_, child.genome, rng_);
-    if (rng_.chance(0.2)) blockSwap(*eligibility_, child.genome, rng_, 7);
+    swapMutation(*eligibility_, child.genome, 1 + rng_.below(3), rng_);
     // 5 - Local search on the incremental evaluator.
     improve(child);
   }

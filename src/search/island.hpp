@@ -8,6 +8,7 @@
 #include "eval/evaluator.hpp"
 #include "search/eligibility.hpp"
 #include "search/individual.hpp"
+#include "search/local_search.hpp"
 #include "search/rng.hpp"
 #include "search/solver_options.hpp"
 
@@ -43,6 +44,7 @@ class Island {
   Rng rng_;
   std::vector<Individual> population_, offspring_;
   std::vector<int> parents_;
+  LateAcceptanceScratch lateScratch_;
 };
 
 }  // namespace rotaweave::search

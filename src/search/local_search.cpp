@@ -1,53 +1,11 @@
-/// @brief Move generation and acceptance.
+/// @brief Acceptance rules for local search: hill climbing and late acceptance.
 #include "search/local_search.hpp"
 
 #include <algorithm>
 
-namespace rotaweave::search {
+#include "search/moves.hpp"
 
-void randomMove(const Eligibility& e, const model::Roster& g, Rng& rng, eval::Move& move) {
-  move.clear();
-  const auto& cells = e.freeCells();
-  if (cells.empty()) return;
-  const int kind = rng.below(100);
-  if (kind < 50) {
-    // Reassign one cell to another of its options.
-    const int cell = cells[static_cast<size_t>(rng.below(static_cast<int>(cells.size())))];
-    const StaffIdx s = cell / g.days;
-    const DayIdx d = cell % g.days;
-    const TaskIdx t = e.begin(s, d)[rng.below(e.count(s, d))];
-    if (t != g.at(s, d)) move.add(s, d, t);
-    return;
-  }
-  if (kind < 85) {
-    // Same-day swap: two people exchange what they do that day.
-    const int cell = cells[static_cast<size_t>(rng.below(static_cast<int>(cells.size())))];
-    const DayIdx d = cell % g.days;
-    const StaffIdx a = cell / g.days;
-    const auto& free = e.freeOnDay(d);
-    const StaffIdx b = free[static_cast<size_t>(rng.below(static_cast<int>(free.size())))];
-    const TaskIdx ta = g.at(a, d), tb = g.at(b, d);
-    if (a == b || ta == tb || !e.allows(a, d, tb) || !e.allows(b, d, ta)) return;
-    move.add(a, d, tb);
-    move.add(b, d, ta);
-    return;
-  }
-  // Block swap: two people exchange 2 to 7 consecutive days.
-  const int len = std::min(g.days, 2 + rng.below(6));
-  const DayIdx d0 = rng.below(g.days - len + 1);
-  const StaffIdx a = rng.below(g.staff), b = rng.below(g.staff);
-  if (a == b) return;
-  for (DayIdx d = d0; d < d0 + len; ++d) {
-    const TaskIdx ta = g.at(a, d), tb = g.at(b, d);
-    if (ta == tb) continue;
-    if (!e.allows(a, d, tb) || !e.allows(b, d, ta)) {
-      move.clear();
-      return;
-    }
-    move.add(a, d, tb);
-    move.add(b, d, ta);
-  }
-}
+namespace rotaweave::search {
 
 int hillClimb(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves) {
   eval::Move move;
@@ -62,6 +20,32 @@ int hillClimb(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves) {
     }
   }
   return accepted;
+}
+
+void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves, LateAcceptanceScratch& scratch) {
+  // Late acceptance: a move is taken if it is no worse than the current roster or than the
+  // roster of `history` steps ago, so the search can climb out of local optima gradually.
+  auto& late = scratch.late;
+  const size_t history = late.size();
+  std::fill(late.begin(), late.end(), ev.total());
+  scratch.best = ev.roster();
+  rules::Tally best = ev.total();
+  eval::Move move;
+  for (int i = 0; i < moves; ++i) {
+    randomMove(e, ev.roster(), rng, move);
+    if (move.size == 0) continue;
+    const rules::Tally candidate = ev.tryMove(move);
+    rules::Tally& slot = late[static_cast<size_t>(i) % history];
+    if (!(ev.total() < candidate) || !(slot < candidate)) {
+      ev.commit();
+      if (candidate < best) {
+        best = candidate;
+        scratch.best.cells = ev.roster().cells;  // same size: a copy, no allocation
+      }
+    }
+    if (ev.total() < slot) slot = ev.total();
+  }
+  if (best < ev.total()) ev.load(scratch.best);
 }
 
 }  // namespace rotaweave::search

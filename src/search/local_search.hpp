@@ -1,17 +1,25 @@
-/// @brief Hill climbing on the incremental evaluator: random reassign, same-day swap and
-/// block-swap moves, accepted when they do not make the roster worse.
+/// @brief Local search on the incremental evaluator with the moves of moves.hpp.
 #pragma once
+#include <vector>
+
 #include "eval/evaluator.hpp"
 #include "search/eligibility.hpp"
+#include "search/moves.hpp"
 #include "search/rng.hpp"
 
 namespace rotaweave::search {
 
-/// Builds one random move valid under `e` for the roster loaded in `ev`; empty if none was found.
-void randomMove(const Eligibility& e, const model::Roster& roster, Rng& rng, eval::Move& move);
-
 /// Tries `moves` random moves on the roster loaded in `ev`, keeping those that do not worsen it.
 /// Returns the number of moves accepted. No allocation.
 int hillClimb(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves);
+
+/// Buffers reused across calls, so late acceptance allocates nothing per child.
+struct LateAcceptanceScratch {
+  std::vector<rules::Tally> late;  ///< history length = size()
+  model::Roster best;
+};
+
+/// Late-acceptance hill climbing for `moves` moves; leaves the best roster seen loaded in `ev`.
+void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves, LateAcceptanceScratch& scratch);
 
 }  // namespace rotaweave::search

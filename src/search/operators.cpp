@@ -1,6 +1,8 @@
 /// @brief Selection schemes, crossover and mutation.
 #include "search/operators.hpp"
 
+#include "search/moves.hpp"
+
 #include <algorithm>
 #include <cmath>
 
@@ -88,28 +90,12 @@ void reassignMutation(const Eligibility& e, model::Roster& g, double rate, Rng& 
   }
 }
 
-bool sameDaySwap(const Eligibility& e, model::Roster& g, Rng& rng) {
-  const DayIdx d = rng.below(g.days);
-  const auto& free = e.freeOnDay(d);
-  if (free.size() < 2) return false;
-  const StaffIdx a = free[static_cast<size_t>(rng.below(static_cast<int>(free.size())))];
-  const StaffIdx b = free[static_cast<size_t>(rng.below(static_cast<int>(free.size())))];
-  const TaskIdx ta = g.at(a, d), tb = g.at(b, d);
-  if (a == b || ta == tb || !e.allows(a, d, tb) || !e.allows(b, d, ta)) return false;
-  std::swap(g.at(a, d), g.at(b, d));
-  return true;
-}
-
-bool blockSwap(const Eligibility& e, model::Roster& g, Rng& rng, int maxLength) {
-  const int len = 2 + rng.below(std::max(1, maxLength - 1));
-  if (len > g.days) return false;
-  const DayIdx d0 = rng.below(g.days - len + 1);
-  const StaffIdx a = rng.below(g.staff), b = rng.below(g.staff);
-  if (a == b) return false;
-  for (DayIdx d = d0; d < d0 + len; ++d)
-    if (!e.allows(a, d, g.at(b, d)) || !e.allows(b, d, g.at(a, d))) return false;
-  for (DayIdx d = d0; d < d0 + len; ++d) std::swap(g.at(a, d), g.at(b, d));
-  return true;
+void swapMutation(const Eligibility& e, model::Roster& g, int moves, Rng& rng) {
+  eval::Move move;
+  for (int i = 0; i < moves; ++i) {
+    randomMove(e, g, rng, move);
+    applyMove(g, move);
+  }
 }
 
 }  // namespace rotaweave::search

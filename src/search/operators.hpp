@@ -22,9 +22,7 @@ void dayBlockCrossover(const model::Roster& a, const model::Roster& b, model::Ro
 
 /// Reassigns each free cell with probability `rate` to another eligible task.
 void reassignMutation(const Eligibility& e, model::Roster& g, double rate, Rng& rng);
-/// Exchanges the cells of two people on one day, where both may take the other's task.
-bool sameDaySwap(const Eligibility& e, model::Roster& g, Rng& rng);
-/// Exchanges a block of consecutive days between two people, where every cell allows it.
-bool blockSwap(const Eligibility& e, model::Roster& g, Rng& rng, int maxLength);
+/// Applies `moves` random neighbourhood moves (swaps, block swaps, run fills) to the genome.
+void swapMutation(const Eligibility& e, model::Roster& g, int moves, Rng& rng);
 
 }  // namespace rotaweave::search

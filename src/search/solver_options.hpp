@@ -15,14 +15,14 @@ struct SolverOptions {
   std::uint64_t seed = 0;         ///< 0: pick one from the clock (the one used is reported)
   int threads = 0;                ///< 0: all cores
   int islands = 4;
-  int population = 16;            ///< per island
+  int population = 8;             ///< per island
   int elite = 2;
   Selection selection = Selection::Tournament;
   int tournamentSize = 3;
   double crossoverRate = 0.9;
   double blockCrossoverShare = 0.5;  ///< share of crossovers that exchange a block of days
   double mutationRate = 0.01;        ///< per cell
-  int localSearchMoves = 600;        ///< moves tried on each offspring
+  int localSearchMoves = 20000;      ///< moves tried on each offspring (late acceptance)
   int migrationInterval = 8;         ///< generations between migrations
   int migrants = 2;
   bool quiet = false;

@@ -97,8 +97,7 @@ TEST_SUITE("search") {
       search::rowUniformCrossover(a, b, child, rng);
       search::dayBlockCrossover(child, b, child, rng);
       search::reassignMutation(e, child, 0.2, rng);
-      search::sameDaySwap(e, child, rng);
-      search::blockSwap(e, child, rng, 5);
+      search::swapMutation(e, child, 5, rng);
       for (StaffIdx s = 0; s < child.staff; ++s)
         for (DayIdx d = 0; d < child.days; ++d) REQUIRE(e.allows(s, d, child.at(s, d)));
     }
