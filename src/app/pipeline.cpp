@@ -4,6 +4,7 @@
 #include "analysis/capacity.hpp"
 #include "eval/evaluator.hpp"
 #include "io/output_writer.hpp"
+#include "report/changes.hpp"
 
 namespace rotaweave::app {
 
@@ -16,6 +17,7 @@ Outcome reportAndWrite(const model::Problem& problem, const model::Roster& roste
   analysis::CapacityReport capacity = analysis::analyseCapacity(problem);
   analysis::compareWithRoster(capacity, problem, roster, outcome.report.breaches);
   outcome.report.capacity = std::move(capacity);
+  if (problem.published) outcome.report.changes = report::computeChanges(problem, roster);
   io::writeStandardOutputs(out, io::OutputBundle{problem, roster, outcome.report});
   outcome.exitCode = outcome.report.hardCount > 0 ? 1 : 0;
   return outcome;

@@ -5,18 +5,12 @@
 #include <set>
 #include <sstream>
 
-#include "analysis/capacity.hpp"
 #include "app/commands.hpp"
-#include "app/progress.hpp"
-#include "eval/evaluator.hpp"
-#include "io/atomic_file.hpp"
+#include "app/pipeline.hpp"
 #include "io/csv.hpp"
 #include "io/input_error.hpp"
-#include "io/output_writer.hpp"
 #include "io/roster_csv.hpp"
 #include "io/scenario_loader.hpp"
-#include "report/changes.hpp"
-#include "search/stop_signal.hpp"
 
 namespace rotaweave::app {
 namespace {
@@ -157,27 +151,7 @@ Outcome replan(const ReplanRequest& request) {
       else if (problem.absent[problem.cell(s, d)]) seed.at(s, d) = kOff;
     }
 
-  // Search, then report with the changes against the published roster, then write.
-  const SolveRequest& solve = request.solve;
-  io::ensureDirectory(solve.out);  // fail before a long search, not after it
-  const rules::RuleSet ruleSet(problem);
-  search::installStopSignals();
-  ProgressPrinter printer(solve.options.quiet);
-  const search::SolveResult result = search::solve(ruleSet, solve.options, {seed}, std::ref(printer));
-  printer.finish(result);
-  report::RunInfo run{"replan", result.seed, result.islands, result.threads, result.generations,
-                      result.seconds, result.stopReason, result.history};
-
-  eval::Evaluator evaluator(ruleSet);
-  Outcome outcome;
-  outcome.report = report::buildReport(problem, result.best, evaluator.explain(result.best), std::move(run));
-  analysis::CapacityReport capacity = analysis::analyseCapacity(problem);
-  analysis::compareWithRoster(capacity, problem, result.best, outcome.report.breaches);
-  outcome.report.capacity = std::move(capacity);
-  outcome.report.changes = report::computeChanges(problem, result.best);
-  io::writeStandardOutputs(solve.out, io::OutputBundle{problem, result.best, outcome.report});
-  outcome.exitCode = outcome.report.hardCount > 0 ? 1 : 0;
-  return outcome;
+  return searchAndWrite(problem, {seed}, request.solve, "replan");
 }
 
 }  // namespace rotaweave::app
