@@ -7,6 +7,7 @@
 namespace rotaweave::app {
 
 Outcome check(const std::string& scenario, const std::string& rosterPath, const std::filesystem::path& out) {
+  refuseToOverwrite(rosterPath, out);
   const model::Problem problem = io::loadScenario(scenario);
   const model::Roster roster = io::readRosterCsv(rosterPath, problem);
   report::RunInfo run;

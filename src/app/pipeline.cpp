@@ -3,10 +3,18 @@
 
 #include "analysis/capacity.hpp"
 #include "eval/evaluator.hpp"
+#include "io/input_error.hpp"
 #include "io/output_writer.hpp"
 #include "report/changes.hpp"
 
 namespace rotaweave::app {
+
+void refuseToOverwrite(const std::filesystem::path& input, const std::filesystem::path& out) {
+  std::error_code ec;
+  if (std::filesystem::equivalent(input, out / "roster.csv", ec))
+    throw io::OutputError("--out " + out.string() + " would overwrite the input roster " + input.string() +
+                          "; choose another output folder");
+}
 
 Outcome reportAndWrite(const model::Problem& problem, const model::Roster& roster, report::RunInfo run,
                        const std::filesystem::path& out) {

@@ -9,6 +9,9 @@
 
 namespace rotaweave::app {
 
+/// Throws io::OutputError if writing roster.csv into `out` would replace the file `input`.
+void refuseToOverwrite(const std::filesystem::path& input, const std::filesystem::path& out);
+
 /// Runs the search from `seeds` (may be empty), then reports and writes the best roster.
 Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::Roster>& seeds, const SolveRequest& request,
                        const char* command);

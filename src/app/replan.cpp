@@ -112,6 +112,7 @@ void applyAbsence(model::Problem& p, const std::string& text, DayIdx first) {
 }  // namespace
 
 Outcome replan(const ReplanRequest& request) {
+  refuseToOverwrite(request.publishedRoster, request.solve.out);
   model::Problem problem = io::loadScenario(request.solve.scenario);
   const auto from = model::parseIsoDate(request.from);
   if (!from) throw io::InputError("--from " + request.from, 0, 0, "invalid date; write YYYY-MM-DD");

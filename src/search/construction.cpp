@@ -17,7 +17,8 @@ void randomRoster(const Eligibility& e, model::Roster& g, double offShare, Rng& 
     }
 }
 
-void greedyRoster(const Eligibility& e, eval::Evaluator& ev, Rng& rng, double noise) {
+void greedyRoster(const Eligibility& e, eval::Evaluator& ev, Rng& rng, double noise,
+                  std::chrono::steady_clock::time_point deadline) {
   const model::Problem& p = ev.rules().problem();
   model::Roster g(p.staffCount(), p.days);
   for (StaffIdx s = 0; s < g.staff; ++s)
@@ -26,7 +27,7 @@ void greedyRoster(const Eligibility& e, eval::Evaluator& ev, Rng& rng, double no
 
   std::vector<std::pair<int, TaskIdx>> cells;  // (candidates, task) for the day
   eval::Move move;
-  for (DayIdx d = 0; d < p.days; ++d) {
+  for (DayIdx d = 0; d < p.days && std::chrono::steady_clock::now() < deadline; ++d) {
     cells.clear();
     for (TaskIdx t = 1; t < p.taskCount(); ++t) {
       if (!p.demandAt(d, t).defined) continue;

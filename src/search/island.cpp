@@ -6,6 +6,7 @@
 #include "search/construction.hpp"
 #include "search/local_search.hpp"
 #include "search/operators.hpp"
+#include "search/stop_signal.hpp"
 
 namespace rotaweave::search {
 
@@ -14,9 +15,9 @@ Island::Island(const rules::RuleSet& rules, const Eligibility& eligibility, cons
   lateScratch_.late.resize(50);
 }
 
-void Island::improve(Individual& ind) {
+void Island::improve(Individual& ind, int moves) {
   ev_.load(ind.genome);
-  lateAcceptance(*eligibility_, ev_, rng_, options_.localSearchMoves, lateScratch_);
+  lateAcceptance(*eligibility_, ev_, rng_, moves, lateScratch_);
   ind.genome.cells = ev_.roster().cells;  // same size: no allocation
   ind.score = ev_.total();
 }
@@ -26,7 +27,7 @@ void Island::sortPopulation() {
                    [](const Individual& a, const Individual& b) { return a.score < b.score; });
 }
 
-void Island::initialize(const std::vector<model::Roster>& seeds) {
+void Island::initialize(const std::vector<model::Roster>& seeds, std::chrono::steady_clock::time_point deadline) {
   const model::Problem& p = ev_.rules().problem();
   const int n = std::max(options_.population, 2);
   population_.assign(static_cast<size_t>(n), Individual{model::Roster(p.staffCount(), p.days), {}});
@@ -38,14 +39,23 @@ void Island::initialize(const std::vector<model::Roster>& seeds) {
       ind.score = ev_.total();
       continue;
     }
+    const bool late = std::chrono::steady_clock::now() >= deadline || stopRequested();
+    if (late && i > 0) {
+      // Out of time: a mutated copy of the first individual, scored but not improved.
+      ind.genome = population_.front().genome;
+      reassignMutation(*eligibility_, ind.genome, options_.mutationRate, rng_);
+      ev_.load(ind.genome);
+      ind.score = ev_.total();
+      continue;
+    }
     // Mostly noisy greedy starts; a quarter random, for diversity.
     if (i % 4 == 3) {
       randomRoster(*eligibility_, ind.genome, 0.6, rng_);
     } else {
-      greedyRoster(*eligibility_, ev_, rng_, i == 0 ? 0.0 : 0.3);
+      greedyRoster(*eligibility_, ev_, rng_, i == 0 ? 0.0 : 0.3, deadline);
       ind.genome = ev_.roster();
     }
-    improve(ind);
+    improve(ind, late ? 0 : options_.localSearchMoves);
   }
   sortPopulation();
   offspring_ = population_;
@@ -73,7 +83,7 @@ void Island::step() {
     reassignMutation(*eligibility_, child.genome, options_.mutationRate, rng_);
     swapMutation(*eligibility_, child.genome, 1 + rng_.below(3), rng_);
     // 5 - Local search on the incremental evaluator.
-    improve(child);
+    improve(child, options_.localSearchMoves);
   }
   // 6 - Replacement: the offspring become the population.
   std::swap(population_, offspring_);

@@ -3,6 +3,7 @@
 /// Islands share only the read-only Problem, RuleSet and Eligibility, so they can run on
 /// any thread; the result depends on the seed alone, never on scheduling.
 #pragma once
+#include <chrono>
 #include <vector>
 
 #include "eval/evaluator.hpp"
@@ -19,7 +20,8 @@ class Island {
   Island(const rules::RuleSet& rules, const Eligibility& eligibility, const SolverOptions& options, std::uint64_t seed);
 
   /// Builds the first population; `seeds` (e.g. a published roster) join it as they are.
-  void initialize(const std::vector<model::Roster>& seeds);
+  /// Past `deadline`, the rest of the population are quick variants of the first individual.
+  void initialize(const std::vector<model::Roster>& seeds, std::chrono::steady_clock::time_point deadline);
   /// Runs up to `generations` generations; stops early when `stop()` returns true.
   template <class Stop>
   int evolve(int generations, Stop&& stop) {
@@ -35,7 +37,7 @@ class Island {
 
  private:
   void step();
-  void improve(Individual& ind);
+  void improve(Individual& ind, int moves);
   void sortPopulation();
 
   const Eligibility* eligibility_;

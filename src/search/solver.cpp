@@ -59,9 +59,10 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
     return outOfTime.load();
   };
 
-  // 1 - Initial populations, one island per thread.
+  // 1 - Initial populations, one island per thread, within the time limit.
+  const auto deadline = started + std::chrono::duration_cast<Clock::duration>(std::chrono::duration<double>(options.timeLimit));
 #pragma omp parallel for num_threads(result.threads) schedule(dynamic, 1)
-  for (int i = 0; i < result.islands; ++i) islands[static_cast<size_t>(i)]->initialize(seeds);
+  for (int i = 0; i < result.islands; ++i) islands[static_cast<size_t>(i)]->initialize(seeds, deadline);
 
   auto bestIsland = [&] {
     int best = 0;

@@ -1,9 +1,11 @@
 /// @brief Bad scenarios and rosters: each is rejected with the file, the line and what to fix.
 #include <doctest/doctest.h>
 
+#include <filesystem>
 #include <fstream>
 
 #include "fixtures.hpp"
+#include "app/commands.hpp"
 #include "io/input_error.hpp"
 #include "io/roster_csv.hpp"
 #include "io/scenario_loader.hpp"
@@ -125,5 +127,20 @@ TEST_SUITE("io") {
     CHECK(r.at(1, 0) == p.task(0, 1));
     // Writing and reading back gives the same roster.
     CHECK(io::readRosterCsv(test::writeTemp(io::rosterCsvText(r, p), ".csv"), p) == r);
+  }
+}
+
+TEST_SUITE("io") {
+  TEST_CASE("check refuses an output folder that would overwrite its input roster") {
+    // design.md: inputs are never overwritten.
+    std::string scenario;
+    const auto p = test::loadYaml(kValid, &scenario);
+    const std::string header = "staff,2027-03-01,2027-03-02,2027-03-03,2027-03-04,2027-03-05,2027-03-06,2027-03-07\n";
+    const std::string roster = test::writeTemp(header + "ana,E,,,,,,\nben,,,,,,,\n", ".csv");
+    const auto dir = std::filesystem::path(roster).parent_path() / "in-place";
+    std::filesystem::create_directories(dir);
+    std::filesystem::copy_file(roster, dir / "roster.csv", std::filesystem::copy_options::overwrite_existing);
+    CHECK_THROWS_AS(app::check(scenario, (dir / "roster.csv").string(), dir), io::OutputError);
+    CHECK(std::filesystem::file_size(dir / "roster.csv") == std::filesystem::file_size(roster));
   }
 }
