@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <string>
 
+#include "analysis/capacity.hpp"
 #include "io/xlsx_sheets.hpp"
 
 namespace rotaweave::io::xlsx {
@@ -122,6 +123,24 @@ void writeProgress(Writer& w) {
 
 }  // namespace
 
+/// The capacity analysis: lower bounds beside this roster's totals, then each unavoidable shortfall.
+void writeCapacity(Writer& w) {
+  const auto& capacity = w.bk.data.report.capacity;
+  if (!capacity) return;
+  const model::Problem& p = w.bk.data.problem;
+  w.heading("Capacity (what the staff on hand can cover at best, whatever the roster)");
+  w.number("Least possible hard penalty", points(capacity->bounds.hard));
+  w.number("This roster's hard penalty", points(w.bk.data.report.total.hard));
+  w.number("Unfillable minimum cover", capacity->bounds.coverUnits);
+  std::vector<std::string> lines;
+  for (const auto& c : capacity->cells) lines.push_back(analysis::describe(c, p));
+  for (const auto& d : capacity->days) lines.push_back(analysis::describe(d, p));
+  for (const auto& person : capacity->people) lines.push_back(analysis::describe(person, p));
+  if (lines.empty()) lines.push_back("No shortfall is unavoidable: the staff on hand can meet every minimum.");
+  for (const std::string& line : lines) check(worksheet_write_string(w.ws, w.row++, 0, line.c_str(), nullptr), "capacity");
+  ++w.row;
+}
+
 void writeSummarySheet(Book& bk) {
   lxw_worksheet* ws = workbook_add_worksheet(bk.workbook, "Summary");
   if (!ws) check(LXW_ERROR_MEMORY_MALLOC_FAILED, "Summary sheet");
@@ -165,6 +184,7 @@ void writeSummarySheet(Book& bk) {
   ++w.row;
   writeByRule(w);
   ++w.row;
+  writeCapacity(w);
 
   w.heading("Caution");
   Style caution;
