@@ -13,5 +13,9 @@ if [ "$(id -u)" = 0 ] && ! dpkg -s $packages >/dev/null 2>&1; then
   apt-get install -y -qq --no-install-recommends $packages >/dev/null
 fi
 cmake -S . -B build -DCMAKE_BUILD_TYPE=Release >/dev/null
-cmake --build build -j"$(nproc)" 2>&1 | grep -E "error|warning|Built target rotaweave$" || true
-test -x build/rotaweave
+if ! cmake --build build -j"$(nproc)" >build/build.log 2>&1; then
+  tail -n 60 build/build.log
+  echo "build failed; the full log is build/build.log" >&2
+  exit 1
+fi
+echo "built build/rotaweave"
