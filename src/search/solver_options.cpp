@@ -21,7 +21,7 @@ const std::vector<ParameterInfo>& parameterTable() {
       {"crossover-rate", "probability that a child mixes two parents", 0, 1, d.crossoverRate, false},
       {"block-crossover", "share of crossovers that exchange a block of days rather than whole rows", 0, 1, d.blockCrossoverShare, false},
       {"mutation-rate", "probability that each cell of a child is reassigned", 0, 1, d.mutationRate, false},
-      {"local-search", "local-search moves tried on each child", 0, 1e7, static_cast<double>(d.localSearchMoves), true},
+      {"local-search", "late-acceptance local-search moves tried on each child", 0, 1e7, static_cast<double>(d.localSearchMoves), true},
       {"migration-interval", "generations between migrations on the island ring", 1, 1e6, static_cast<double>(d.migrationInterval), true},
       {"migrants", "best individuals sent to the next island at each migration", 0, 100, static_cast<double>(d.migrants), true},
   };
