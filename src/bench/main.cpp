@@ -89,7 +89,7 @@ double movesPerSecond(const rw::rules::RuleSet& set, const rw::search::Eligibili
 rw::search::SolveResult timedSolve(const rw::rules::RuleSet& set, int threads, long generations) {
   rw::search::SolverOptions o;
   o.seed = 1;
-  o.islands = 2;
+  o.islands = 4;
   o.threads = threads;
   o.generations = generations;
   o.stallGenerations = 0;
