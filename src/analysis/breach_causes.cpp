@@ -13,16 +13,8 @@ using model::Problem;
 using wording::namesText;
 using wording::slotText;
 
-/// The task of a cover breach, read back from its message ("2027-03-14 N rn: ..."); kOff if none.
-TaskIdx coverTask(const Problem& p, const rules::Breach& b) {
-  if (b.days.empty()) return kOff;
-  for (TaskIdx t = 1; t < p.taskCount(); ++t) {
-    if (!p.demandAt(b.days.front(), t).defined) continue;
-    const std::string prefix = slotText(p, b.days.front(), t) + ":";
-    if (b.message.compare(0, prefix.size(), prefix) == 0) return t;
-  }
-  return kOff;
-}
+/// The task of a cover breach; kOff if none.
+TaskIdx coverTask(const Problem&, const rules::Breach& b) { return b.kind == "cover" ? b.task : kOff; }
 
 bool isContractMinimum(const Problem& p, const rules::Breach& b) {
   if (b.kind != "min-hours" || b.staff < 0) return false;
@@ -193,8 +185,8 @@ void compareWithRoster(CapacityReport& report, const Problem& problem, const mod
     if (b.hard) cmp.hard += b.penalty;
     if (b.kind != "cover") continue;
     if (b.hard) cmp.coverHard += b.penalty, cmp.coverHardUnits += static_cast<int>(b.amount / kAmountScale);
-    else if (b.message.find(" wanted") != std::string::npos && b.message.find("at most") == std::string::npos)
-      cmp.coverSoft += b.penalty;  // target part ("N wanted"), not the max part ("at most N wanted")
+    else if (b.coverPart == rules::CoverPart::Target)
+      cmp.coverSoft += b.penalty;
   }
   cmp.coverSoftBound = report.coverSoftBound(cmp.hard);
   for (auto& tag : tagBreaches(report, problem, roster, breaches))

@@ -7,6 +7,9 @@
 
 namespace rotaweave::rules {
 
+/// Which bound of a cover cell a cover breach misses (None for every other kind).
+enum class CoverPart { None, Min, Target, Max };
+
 struct Breach {
   std::string ruleId;
   std::string kind;
@@ -16,6 +19,8 @@ struct Breach {
   Cost amount = 0;              ///< In 1/kAmountScale units.
   Cost penalty = 0;             ///< In 1/kCostScale units.
   std::string message;
+  TaskIdx task = kOff;                 ///< cover: the (shift, skill) cell
+  CoverPart coverPart = CoverPart::None;
 };
 
 /// Hard and soft penalty totals, in 1/kCostScale units. Lower is better, hard first.

@@ -11,7 +11,7 @@ void CoverRule::explain(DayIdx day, TaskIdx task, int count, std::vector<Breach>
   const model::Task& t = p_->tasks[static_cast<size_t>(task)];
   const std::string where = p_->dateText(day) + " " + p_->shifts[static_cast<size_t>(t.shift)].id + " " +
                             p_->skills[static_cast<size_t>(t.skill)] + ": " + std::to_string(count) + " assigned, ";
-  auto add = [&](bool hard, int persons, Cost weight, std::string what) {
+  auto add = [&](CoverPart part, bool hard, int persons, Cost weight, std::string what) {
     Breach b;
     b.ruleId = "cover";
     b.kind = "cover";
@@ -20,11 +20,13 @@ void CoverRule::explain(DayIdx day, TaskIdx task, int count, std::vector<Breach>
     b.amount = persons * kAmountScale;
     b.penalty = b.amount * weight;
     b.message = where + what;
+    b.task = task;
+    b.coverPart = part;
     out.push_back(std::move(b));
   };
-  if (count < c.min) add(c.minHard, c.min - count, c.minWeight, "at least " + std::to_string(c.min) + " needed");
-  if (count < c.target) add(false, c.target - count, c.targetWeight, std::to_string(c.target) + " wanted");
-  if (c.max >= 0 && count > c.max) add(false, count - c.max, c.maxWeight, "at most " + std::to_string(c.max) + " wanted");
+  if (count < c.min) add(CoverPart::Min, c.minHard, c.min - count, c.minWeight, "at least " + std::to_string(c.min) + " needed");
+  if (count < c.target) add(CoverPart::Target, false, c.target - count, c.targetWeight, std::to_string(c.target) + " wanted");
+  if (c.max >= 0 && count > c.max) add(CoverPart::Max, false, count - c.max, c.maxWeight, "at most " + std::to_string(c.max) + " wanted");
 }
 
 }  // namespace rotaweave::rules
