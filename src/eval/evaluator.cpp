@@ -30,6 +30,7 @@ Evaluator::Evaluator(const rules::RuleSet& rules)
   endBuf_.assign(span, 0);
   paidBuf_.assign(span, 0);
   coverScratch_.resize(static_cast<size_t>(days_ * tasks_));
+  keyStamp_.assign(static_cast<size_t>(days_ * tasks_), 0);
   fairScratch_.resize(p_->staff.size());
   rowScratch_.resize(static_cast<size_t>(Move::kCapacity * days_));
   tabulateCellRules();
@@ -230,9 +231,10 @@ Tally Evaluator::tryMove(const Move& move) {
   // 2 - Cover: re-score the (day, task) cells whose counts change, then restore the counts.
   std::array<int, 2 * Move::kCapacity> keys;
   int nKeys = 0;
+  if (++stamp_ == 0) std::fill(keyStamp_.begin(), keyStamp_.end(), 0), stamp_ = 1;  // wrapped around
   auto touch = [&](int key) {
-    for (int k = 0; k < nKeys; ++k)
-      if (keys[static_cast<size_t>(k)] == key) return;
+    if (keyStamp_[static_cast<size_t>(key)] == stamp_) return;
+    keyStamp_[static_cast<size_t>(key)] = stamp_;
     keys[static_cast<size_t>(nKeys++)] = key;
   };
   for (const CellChange& c : move) {

@@ -60,6 +60,8 @@ class Evaluator {
   std::vector<int> startBuf_, endBuf_, paidBuf_;
   std::vector<Tally> cellCost_;  ///< [(staff * days + day) * tasks + task]: cell-local rules' penalty
   std::vector<int> coverScratch_;
+  std::vector<std::uint32_t> keyStamp_;  ///< per (day, task): the tryMove call that last touched it
+  std::uint32_t stamp_ = 0;
   std::vector<int> fairScratch_;
 
   // Loaded state.

@@ -69,11 +69,14 @@ void WeeklyRestRule::score(const RowView& row, Tally& tally, std::vector<Breach>
   // Walk the free gaps between worked shifts; the time before the first known shift and after
   // the last one is unbounded. Each gap counts, whole, for every block it overlaps.
   constexpr int kOpen = 1 << 29;  // far beyond any period, and still no overflow in to - from
+  // Gaps come in time order, so the first block a gap can overlap only moves forward:
+  // tracked with additions instead of a division per gap.
+  int firstBlock = 0, firstBlockEnd = blockLen;
   auto gap = [&](int from, int to) {
     const int len = to - from;
-    const int first = from <= 0 ? 0 : from / blockLen;
-    const int last = std::min(blocks - 1, (to - 1) / blockLen);
-    for (int k = first; k <= last; ++k) best[static_cast<size_t>(k)] = std::max(best[static_cast<size_t>(k)], len);
+    while (firstBlockEnd <= from) ++firstBlock, firstBlockEnd += blockLen;
+    for (int k = firstBlock, kStart = firstBlockEnd - blockLen; k < blocks && kStart < to; ++k, kStart += blockLen)
+      best[static_cast<size_t>(k)] = std::max(best[static_cast<size_t>(k)], len);
   };
   int freeSince = -kOpen;
   for (DayIdx d = -row.history; d < row.days; ++d) {
