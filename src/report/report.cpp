@@ -22,6 +22,24 @@ std::string trimmedNumber(double v) {
 std::string pointsText(Cost cost) { return trimmedNumber(static_cast<double>(cost) / static_cast<double>(kCostScale)); }
 std::string amountText(Cost amount) { return trimmedNumber(static_cast<double>(amount) / static_cast<double>(kAmountScale)); }
 
+const char* amountUnit(const std::string& kind) {
+  if (kind == "cover") return "people";
+  if (kind == "min-hours" || kind == "max-hours" || kind == "weekly-rest") return "h";
+  if (kind == "min-consecutive-days" || kind == "max-consecutive-days" || kind == "min-consecutive" ||
+      kind == "max-consecutive" || kind == "min-consecutive-off" || kind == "days-off-after")
+    return "days";
+  if (kind == "min-count" || kind == "max-count") return "shifts";
+  if (kind == "max-weekends") return "weekends";
+  return "";
+}
+
+std::string amountWithUnit(const std::string& kind, Cost amount) {
+  std::string unit = amountUnit(kind);
+  if (unit.empty()) return amountText(amount);
+  if (amount == kAmountScale) unit = unit == "people" ? "person" : unit == "days" ? "day" : unit == "shifts" ? "shift" : unit == "weekends" ? "weekend" : unit;
+  return amountText(amount) + " " + unit;
+}
+
 const char* cautionText() {
   return "Caution: this roster was checked only against the rules given in the scenario. The rule presets are "
          "examples, simplified from typical statutory minimums and published health-and-safety guidance. Labour "

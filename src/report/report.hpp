@@ -64,5 +64,9 @@ const char* cautionText();
 std::string pointsText(Cost cost);
 /// An amount as text, in its rule's unit: "2", "1.5".
 std::string amountText(Cost amount);
+/// The unit a kind's amount is counted in ("h", "days", "people", ...), or "" for a count of breaches.
+const char* amountUnit(const std::string& kind);
+/// amountText with its unit: "2.5 h", "1 people" reads badly, so counts of one use the singular.
+std::string amountWithUnit(const std::string& kind, Cost amount);
 
 }  // namespace rotaweave::report

@@ -63,10 +63,10 @@ std::string renderText(const Report& r, const model::Problem& p) {
 
   out << "BY RULE\n";
   if (r.byRule.empty()) out << "  (none)\n";
-  else out << "  " << pad("severity", 10) << pad("rule", 30) << pad("kind", 22) << pad("breaches", 10) << pad("amount", 10) << "penalty\n";
+  else out << "  " << pad("severity", 10) << pad("rule", 30) << pad("kind", 22) << pad("breaches", 10) << pad("amount", 12) << "penalty\n";
   for (const auto& s : r.byRule)
     out << "  " << pad(s.hard ? "hard" : "soft", 10) << pad(s.ruleId, 30) << pad(s.kind, 22) << pad(std::to_string(s.count), 10)
-        << pad(amountText(s.amount), 10) << pointsText(s.penalty) << "\n";
+        << pad(amountWithUnit(s.kind, s.amount), 12) << pointsText(s.penalty) << "\n";
 
   out << "\nBY PERSON\n";
   for (const auto& ps : r.byPerson) {
@@ -85,7 +85,7 @@ std::string renderText(const Report& r, const model::Problem& p) {
   for (const auto& b : r.breaches) {
     const std::string who = b.staff >= 0 ? p.staff[static_cast<size_t>(b.staff)].id : "-";
     out << "  " << pad(b.hard ? "HARD" : "soft", 5) << pad(b.ruleId, 24) << pad(who, 12) << pad(datesText(p, b.days), 24)
-        << "amount " << pad(amountText(b.amount), 7) << "penalty " << pointsText(b.penalty) << "\n"
+        << "amount " << pad(amountWithUnit(b.kind, b.amount), 11) << "penalty " << pointsText(b.penalty) << "\n"
         << "        " << b.message << "\n";
   }
   out << "\n" << cautionText() << "\n";
