@@ -16,7 +16,12 @@ std::string changesCsvText(const report::ChangeSummary& changes, const model::Pr
 }
 
 void ChangesCsvWriter::write(const std::filesystem::path& dir, const OutputBundle& b) const {
-  if (!b.report.changes) return;
+  if (!b.report.changes) {
+    // A changes.csv left by an earlier replan into this folder no longer describes its roster.
+    std::error_code ignored;
+    std::filesystem::remove(dir / "changes.csv", ignored);
+    return;
+  }
   writeFileAtomic(dir / "changes.csv", changesCsvText(*b.report.changes, b.problem));
 }
 
