@@ -16,7 +16,7 @@ const char* kUsage =
     "                                 [--threads N] [--islands N] [--quiet]\n"
     "  rotaweave check  SCENARIO.yaml --roster ROSTER.csv [--out DIR]\n"
     "  rotaweave replan SCENARIO.yaml --roster PUBLISHED.csv --from DATE\n"
-    "                                 [--absence STAFF:DATE[..DATE]]... [--out DIR] [solve options]\n"
+    "                                 [--absence STAFF:DATE[..DATE][:REASON]]... [--out DIR] [solve options]\n"
     "  rotaweave --help | --version\n";
 
 po::options_description solverOptions() {
@@ -71,7 +71,7 @@ std::string helpText() {
   po::options_description all;
   all.add(common()).add(solverOptions());
   all.add_options()("roster", "check, replan: the roster CSV to check or the published roster")(
-      "from", "replan: first date to re-plan (YYYY-MM-DD)")("absence", "replan: STAFF:DATE or STAFF:DATE..DATE, repeatable");
+      "from", "replan: first date to re-plan (YYYY-MM-DD)")("absence", "replan: STAFF:DATE, STAFF:DATE..DATE or either with :REASON, repeatable");
   out << all;
   out << "\nExit status: 0 done, no hard violation; 1 hard violations remain; 2 bad input or usage; 3 internal error.\n";
   return out.str();
@@ -113,7 +113,7 @@ Parsed parseCommandLine(int argc, char** argv) {
     if (command == "replan")
       desc.add_options()("roster", po::value<std::string>()->required(), "published roster CSV")(
           "from", po::value<std::string>()->required(), "first date to re-plan")(
-          "absence", po::value<std::vector<std::string>>()->composing(), "STAFF:DATE[..DATE], repeatable");
+          "absence", po::value<std::vector<std::string>>()->composing(), "STAFF:DATE[..DATE][:REASON], repeatable");
     const auto vm = parse(args, desc, command.c_str());
     app::SolveRequest solve{vm["scenario"].as<std::string>(), vm["out"].as<std::string>(), readSolverOptions(vm)};
     if (command == "solve") return solve;
