@@ -47,25 +47,7 @@ void writeChangesSheet(Book& bk) {
     ++row;
   }
 
-  Style head;
-  head.bold = true;
-  head.fill = kHeaderFill;
-  head.font = 0xFFFFFF;
-  lxw_table_column columns[kColumns]{};
-  lxw_table_column* list[kColumns + 1]{};
-  for (int c = 0; c < kColumns; ++c) {
-    columns[c].header = const_cast<char*>(headers[c]);
-    columns[c].header_format = f.get(head);
-    list[c] = &columns[c];
-  }
-  lxw_table_options options{};
-  options.name = const_cast<char*>("Changes");
-  options.style_type = LXW_TABLE_STYLE_TYPE_LIGHT;
-  options.style_type_number = 9;
-  options.columns = list;
-  // A table needs one data row; with no changes it is left empty.
-  const lxw_row_t last = changes.cells.empty() ? kHeadRow + 1 : row - 1;
-  check(worksheet_add_table(ws, kHeadRow, 0, last, kColumns - 1, &options), "changes table");
+  addTable(ws, f, "Changes", {std::begin(headers), std::end(headers)}, kHeadRow, changes.cells.empty() ? kHeadRow + 1 : row - 1);
 
   const size_t caps[kColumns] = {20, 30, 12, 12, 12, 60};
   for (lxw_col_t c = 0; c < kColumns; ++c)

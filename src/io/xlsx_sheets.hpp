@@ -5,6 +5,7 @@
 
 #include <map>
 #include <string>
+#include <vector>
 
 #include "io/output_writer.hpp"
 
@@ -79,5 +80,10 @@ void writeViolationsSheet(Book& book);
 void writeSummarySheet(Book& book);
 /// Only when the report carries re-plan changes.
 void writeChangesSheet(Book& book);
+
+/// Turns rows headRow..lastRow into a filterable table named `name` with our header style.
+/// A table needs one data row, so an empty one spans headRow + 1.
+void addTable(lxw_worksheet* ws, Formats& formats, const char* name, const std::vector<const char*>& headers,
+              lxw_row_t headRow, lxw_row_t lastRow);
 
 }  // namespace rotaweave::io::xlsx

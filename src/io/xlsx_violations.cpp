@@ -44,25 +44,7 @@ void writeViolationsSheet(Book& bk) {
     ++row;
   }
 
-  Style head;
-  head.bold = true;
-  head.fill = kHeaderFill;
-  head.font = 0xFFFFFF;
-  lxw_table_column columns[9]{};
-  lxw_table_column* list[10]{};
-  for (int c = 0; c < 9; ++c) {
-    columns[c].header = const_cast<char*>(headers[c]);
-    columns[c].header_format = f.get(head);
-    list[c] = &columns[c];
-  }
-  lxw_table_options options{};
-  options.name = const_cast<char*>("Violations");
-  options.style_type = LXW_TABLE_STYLE_TYPE_LIGHT;
-  options.style_type_number = 9;
-  options.columns = list;
-  // A table needs one data row; with no breaches it is left empty.
-  const lxw_row_t last = breaches.empty() ? 1 : row - 1;
-  check(worksheet_add_table(ws, 0, 0, last, 8, &options), "violations table");
+  addTable(ws, f, "Violations", {std::begin(headers), std::end(headers)}, 0, breaches.empty() ? 1 : row - 1);
 
   const size_t caps[9] = {9, 40, 28, 20, 30, 60, 9, 9, 140};
   for (lxw_col_t c = 0; c < 9; ++c)

@@ -14,6 +14,29 @@ void check(lxw_error err, const char* what) {
   if (err != LXW_NO_ERROR) throw OutputError(std::string("cannot build roster.xlsx (") + what + "): " + lxw_strerror(err));
 }
 
+void addTable(lxw_worksheet* ws, Formats& formats, const char* name, const std::vector<const char*>& headers,
+              lxw_row_t headRow, lxw_row_t lastRow) {
+  Style head;
+  head.bold = true;
+  head.fill = kHeaderFill;
+  head.font = 0xFFFFFF;
+  std::vector<lxw_table_column> columns(headers.size());
+  std::vector<lxw_table_column*> list;
+  for (size_t c = 0; c < headers.size(); ++c) {
+    columns[c].header = const_cast<char*>(headers[c]);
+    columns[c].header_format = formats.get(head);
+    list.push_back(&columns[c]);
+  }
+  list.push_back(nullptr);
+  lxw_table_options options{};
+  options.name = const_cast<char*>(name);
+  options.style_type = LXW_TABLE_STYLE_TYPE_LIGHT;
+  options.style_type_number = 9;
+  options.columns = list.data();
+  const auto lastColumn = static_cast<lxw_col_t>(headers.size() - 1);
+  check(worksheet_add_table(ws, headRow, 0, lastRow, lastColumn, &options), name);
+}
+
 lxw_format* Formats::get(const Style& s) {
   auto it = cache_.find(s);
   if (it != cache_.end()) return it->second;
