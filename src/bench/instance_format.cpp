@@ -1,6 +1,8 @@
 /// @brief Parses benchmark instance files and renders them as rotaweave scenarios.
 #include "bench/instance_format.hpp"
 
+#include "model/calendar.hpp"
+
 #include <algorithm>
 #include <cctype>
 #include <charconv>
@@ -271,39 +273,10 @@ private:
 
 // ---------------------------------------------------------------- writing
 
-/// Days since 1970-01-01 of a civil date (proleptic Gregorian).
-long daysFromCivil(int y, int m, int d) {
-    y -= m <= 2;
-    const long era = (y >= 0 ? y : y - 399) / 400;
-    const long yoe = y - era * 400;
-    const long doy = (153 * (m + (m > 2 ? -3 : 9)) + 2) / 5 + d - 1;
-    const long doe = yoe * 365 + yoe / 4 - yoe / 100 + doy;
-    return era * 146097 + doe - 719468;
-}
-
-std::string civilFromDays(long z) {
-    z += 719468;
-    const long era = (z >= 0 ? z : z - 146096) / 146097;
-    const long doe = z - era * 146097;
-    const long yoe = (doe - doe / 1460 + doe / 36524 - doe / 146096) / 365;
-    const long doy = doe - (365 * yoe + yoe / 4 - yoe / 100);
-    const long mp = (5 * doy + 2) / 153;
-    const long d = doy - (153 * mp + 2) / 5 + 1;
-    const long m = mp + (mp < 10 ? 3 : -9);
-    const long y = yoe + era * 400 + (m <= 2);
-    char text[64];
-    std::snprintf(text, sizeof text, "%04ld-%02ld-%02ld", y, m, d);
-    return text;
-}
-
 /// ISO date of day index `day` of the scenario period (day 0 = kScenarioStartDate).
 std::string dateOf(int day) {
-    static const long start = [] {
-        int y = 0, m = 0, d = 0;
-        std::sscanf(kScenarioStartDate, "%d-%d-%d", &y, &m, &d);
-        return daysFromCivil(y, m, d);
-    }();
-    return civilFromDays(start + day);
+    static const model::DateSerial start = *model::parseIsoDate(kScenarioStartDate);
+    return model::formatIsoDate(start + day);
 }
 
 bool isReservedWord(std::string s) {
