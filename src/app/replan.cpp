@@ -15,12 +15,6 @@
 namespace rotaweave::app {
 namespace {
 
-std::string trimmed(const std::string& s) {
-  const size_t a = s.find_first_not_of(" \t");
-  if (a == std::string::npos) return "";
-  return s.substr(a, s.find_last_not_of(" \t") - a + 1);
-}
-
 std::string periodText(const model::Problem& p) { return p.dateText(0) + " to " + p.dateText(p.days - 1); }
 
 /// "a, b and 3 more": a short list of ids for a message.
@@ -36,16 +30,12 @@ std::string someIds(const std::vector<std::string>& ids) {
 /// A roster for another month or another team gets one message that says so, rather than an
 /// error about its first odd cell.
 void checkPublishedFits(const std::string& path, const model::Problem& p) {
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw io::InputError(path, 0, 0, "cannot open the published roster; check the path given to --roster");
-  std::stringstream buffer;
-  buffer << in.rdbuf();
-  const auto rows = io::parseCsv(buffer.str(), path);
+  const auto rows = io::readCsvFile(path, "published roster given to --roster");
   if (rows.empty()) return;  // readRosterCsv explains
   const auto& header = rows.front().cells;
   if (header.size() >= 2) {
-    const auto first = model::parseIsoDate(trimmed(header[1]));
-    const auto last = model::parseIsoDate(trimmed(header.back()));
+    const auto first = model::parseIsoDate(io::trimCell(header[1]));
+    const auto last = model::parseIsoDate(io::trimCell(header.back()));
     if (first && last && (*first != p.start || *last != p.start + p.days - 1))
       throw io::InputError(path, rows.front().line, 0,
                            "the published roster covers " + model::formatIsoDate(*first) + " to " + model::formatIsoDate(*last) +
@@ -55,8 +45,8 @@ void checkPublishedFits(const std::string& path, const model::Problem& p) {
   std::vector<std::string> unknown, missing;
   std::set<std::string> listed;
   for (size_t r = 1; r < rows.size(); ++r) {
-    if (rows[r].cells.size() == 1 && trimmed(rows[r].cells[0]).empty()) continue;
-    const std::string id = trimmed(rows[r].cells[0]);
+    if (rows[r].cells.size() == 1 && io::trimCell(rows[r].cells[0]).empty()) continue;
+    const std::string id = io::trimCell(rows[r].cells[0]);
     listed.insert(id);
     if (p.findStaff(id) < 0) unknown.push_back(id);
   }
@@ -82,7 +72,7 @@ void applyAbsence(model::Problem& p, const std::string& text, DayIdx first) {
   const std::string id = text.substr(0, colon);
   std::string range = text.substr(colon + 1), reason = "reported at replan";
   if (const size_t second = range.find(':'); second != std::string::npos) {
-    reason = trimmed(range.substr(second + 1));
+    reason = io::trimCell(range.substr(second + 1));
     range = range.substr(0, second);
     if (reason.empty()) bad("empty reason after the second ':'");
   }

@@ -1,6 +1,9 @@
 /// @brief CSV parsing as spreadsheets save it: optional BOM, CRLF or LF, quoted cells.
 #include "io/csv.hpp"
 
+#include <fstream>
+#include <sstream>
+
 #include "io/input_error.hpp"
 
 namespace rotaweave::io {
@@ -77,6 +80,20 @@ std::vector<CsvRow> parseCsv(const std::string& input, const std::string& file) 
   if (quoted) throw InputError(file, row.line, 0, "a quoted cell is never closed; add the missing '\"'");
   if (any || !cell.empty() || !row.cells.empty()) endRow();
   return rows;
+}
+
+std::vector<CsvRow> readCsvFile(const std::string& path, const std::string& what) {
+  std::ifstream in(path, std::ios::binary);
+  if (!in) throw InputError(path, 0, 0, "cannot open the " + what + "; check the path");
+  std::stringstream buffer;
+  buffer << in.rdbuf();
+  return parseCsv(buffer.str(), path);
+}
+
+std::string trimCell(const std::string& s) {
+  const size_t a = s.find_first_not_of(" \t");
+  if (a == std::string::npos) return "";
+  return s.substr(a, s.find_last_not_of(" \t") - a + 1);
 }
 
 std::string csvCell(const std::string& value) {

@@ -1,20 +1,12 @@
 /// @brief Roster CSV reading with precise errors, and writing.
 #include "io/roster_csv.hpp"
 
-#include <fstream>
-#include <sstream>
 
 #include "io/csv.hpp"
 #include "io/input_error.hpp"
 
 namespace rotaweave::io {
 namespace {
-
-std::string trim(const std::string& s) {
-  const size_t a = s.find_first_not_of(" \t");
-  if (a == std::string::npos) return "";
-  return s.substr(a, s.find_last_not_of(" \t") - a + 1);
-}
 
 std::vector<std::string> staffIds(const model::Problem& p) {
   std::vector<std::string> ids;
@@ -25,7 +17,7 @@ std::vector<std::string> staffIds(const model::Problem& p) {
 TaskIdx parseCell(const std::string& cell, StaffIdx s, const model::Problem& p, const std::string& file, int line, int col) {
   if (cell.empty()) return kOff;
   const size_t slash = cell.find('/');
-  const std::string shiftId = trim(cell.substr(0, slash));
+  const std::string shiftId = trimCell(cell.substr(0, slash));
   const ShiftIdx shift = p.findShift(shiftId);
   std::vector<std::string> shiftIds;
   for (const auto& sh : p.shifts) shiftIds.push_back(sh.id);
@@ -34,7 +26,7 @@ TaskIdx parseCell(const std::string& cell, StaffIdx s, const model::Problem& p, 
                                           "; use a shift id, SHIFT/skill, or leave the cell empty for off");
   SkillIdx skill = p.staff[static_cast<size_t>(s)].skills.front();
   if (slash != std::string::npos) {
-    const std::string skillId = trim(cell.substr(slash + 1));
+    const std::string skillId = trimCell(cell.substr(slash + 1));
     skill = p.findSkill(skillId);
     if (skill < 0)
       throw InputError(file, line, col, "unknown skill '" + skillId + "'" + didYouMean(skillId, p.skills) + " in '" + cell + "'");
@@ -45,21 +37,17 @@ TaskIdx parseCell(const std::string& cell, StaffIdx s, const model::Problem& p, 
 }  // namespace
 
 model::Roster readRosterCsv(const std::string& path, const model::Problem& p) {
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError(path, 0, 0, "cannot open the roster file; check the path");
-  std::stringstream buffer;
-  buffer << in.rdbuf();
-  const auto rows = parseCsv(buffer.str(), path);
+  const auto rows = readCsvFile(path, "roster file");
   if (rows.empty()) throw InputError(path, 0, 0, "the roster file is empty; expected a header staff,<dates>");
 
   const CsvRow& header = rows.front();
-  if (trim(header.cells[0]) != "staff")
+  if (trimCell(header.cells[0]) != "staff")
     throw InputError(path, header.line, 1, "the first header cell must be 'staff', found '" + header.cells[0] + "'");
   if (static_cast<int>(header.cells.size()) != p.days + 1)
     throw InputError(path, header.line, 0, "the header has " + std::to_string(header.cells.size() - 1) + " dates; the period " +
                                                p.dateText(0) + " to " + p.dateText(p.days - 1) + " has " + std::to_string(p.days));
   for (DayIdx d = 0; d < p.days; ++d)
-    if (trim(header.cells[static_cast<size_t>(d + 1)]) != p.dateText(d))
+    if (trimCell(header.cells[static_cast<size_t>(d + 1)]) != p.dateText(d))
       throw InputError(path, header.line, d + 2, "expected date " + p.dateText(d) + " in this column, found '" +
                                                      header.cells[static_cast<size_t>(d + 1)] + "'; the header lists every date of the period in order");
 
@@ -67,7 +55,7 @@ model::Roster readRosterCsv(const std::string& path, const model::Problem& p) {
   std::vector<int> seenAt(p.staff.size(), 0);
   for (size_t r = 1; r < rows.size(); ++r) {
     const CsvRow& row = rows[r];
-    const std::string id = trim(row.cells[0]);
+    const std::string id = trimCell(row.cells[0]);
     const StaffIdx s = p.findStaff(id);
     if (s < 0) throw InputError(path, row.line, 1, "unknown staff id '" + id + "'" + didYouMean(id, staffIds(p)) + "; every row must name a person of the scenario");
     if (seenAt[static_cast<size_t>(s)])
@@ -77,7 +65,7 @@ model::Roster readRosterCsv(const std::string& path, const model::Problem& p) {
       throw InputError(path, row.line, 0, "this row has " + std::to_string(row.cells.size()) + " cells, the header " +
                                               std::to_string(header.cells.size()) + "; every row needs one cell per date (empty = off)");
     for (DayIdx d = 0; d < p.days; ++d)
-      roster.at(s, d) = parseCell(trim(row.cells[static_cast<size_t>(d + 1)]), s, p, path, row.line, d + 2);
+      roster.at(s, d) = parseCell(trimCell(row.cells[static_cast<size_t>(d + 1)]), s, p, path, row.line, d + 2);
   }
   for (size_t s = 0; s < p.staff.size(); ++s)
     if (!seenAt[s]) throw InputError(path, 0, 0, "no row for '" + p.staff[s].id + "'; add a row for every person (empty cells mean off)");
