@@ -34,6 +34,20 @@ std::string InputError::format(const std::string& file, int line, int column, co
   return where.append(": ").append(message);
 }
 
+int badUtf8Line(std::string_view s) {
+  int line = 1;
+  for (size_t i = 0; i < s.size();) {
+    const auto c = static_cast<unsigned char>(s[i]);
+    if (c == '\n') ++line;
+    const size_t len = c < 0x80 ? 1 : (c >> 5) == 0x6 ? 2 : (c >> 4) == 0xE ? 3 : (c >> 3) == 0x1E ? 4 : 0;
+    if (len == 0 || i + len > s.size()) return line;
+    for (size_t k = 1; k < len; ++k)
+      if ((static_cast<unsigned char>(s[i + k]) >> 6) != 0x2) return line;
+    i += len;
+  }
+  return 0;
+}
+
 std::string closestMatch(const std::string& word, const std::vector<std::string>& candidates) {
   // Long words (and whole-word input such as a pasted cell) are not worth comparing.
   if (word.empty() || word.size() > 64) return "";

@@ -2,6 +2,7 @@
 #pragma once
 #include <stdexcept>
 #include <string>
+#include <string_view>
 #include <vector>
 
 namespace rotaweave::io {
@@ -25,6 +26,9 @@ class OutputError : public std::runtime_error {
  public:
   using std::runtime_error::runtime_error;
 };
+
+/// 1-based line of the first byte of `text` that is not valid UTF-8, or 0 if all is valid.
+int badUtf8Line(std::string_view text);
 
 /// The closest candidate within a small edit distance, or "" if none is close.
 std::string closestMatch(const std::string& word, const std::vector<std::string>& candidates);

@@ -12,20 +12,6 @@
 namespace rotaweave::io {
 namespace {
 
-/// 1-based line of the first byte that is not valid UTF-8, or 0.
-int badUtf8Line(const std::string& s) {
-  int line = 1;
-  for (size_t i = 0; i < s.size();) {
-    const auto c = static_cast<unsigned char>(s[i]);
-    if (c == '\n') ++line;
-    size_t len = c < 0x80 ? 1 : (c >> 5) == 0x6 ? 2 : (c >> 4) == 0xE ? 3 : (c >> 3) == 0x1E ? 4 : 0;
-    if (len == 0 || i + len > s.size()) return line;
-    for (size_t k = 1; k < len; ++k)
-      if ((static_cast<unsigned char>(s[i + k]) >> 6) != 0x2) return line;
-    i += len;
-  }
-  return 0;
-}
 
 std::string quoted(const std::string& s) { return "'" + s + "'"; }
 
