@@ -33,6 +33,8 @@ class Evaluator {
   Tally tryMove(const Move& move);
   /// Applies the move last passed to tryMove().
   void commit();
+  /// People on task t on day d in the loaded roster.
+  int coverCount(DayIdx d, TaskIdx t) const { return coverCount_[static_cast<size_t>(d * tasks_ + t)]; }
 
   const rules::RuleSet& rules() const { return *rules_; }
 

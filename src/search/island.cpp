@@ -17,7 +17,8 @@ Island::Island(const rules::RuleSet& rules, const Eligibility& eligibility, cons
 
 void Island::improve(Individual& ind, int moves) {
   ev_.load(ind.genome);
-  lateAcceptance(*eligibility_, ev_, rng_, moves, lateScratch_);
+  const LateAcceptanceSettings settings{options_.chainInterval, LateAcceptanceSettings{}.chainLinks, options_.hardWeightFloor};
+  lateAcceptance(*eligibility_, ev_, rng_, moves, settings, lateScratch_);
   ind.genome.cells = ev_.roster().cells;  // same size: no allocation
   ind.score = ev_.total();
 }

@@ -3,9 +3,18 @@
 
 #include <algorithm>
 
+#include "search/ejection_chain.hpp"
 #include "search/moves.hpp"
 
 namespace rotaweave::search {
+
+namespace {
+
+constexpr int kWeightPeriod = 256;       ///< moves between hard-weight updates
+constexpr double kWeightStep = 1.25;     ///< factor per update
+constexpr double kMaxHardWeight = 1e9;   ///< keeps hard * weight far inside double precision
+
+}  // namespace
 
 int hillClimb(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves) {
   eval::Move move;
@@ -22,28 +31,53 @@ int hillClimb(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves) {
   return accepted;
 }
 
-void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves, LateAcceptanceScratch& scratch) {
+void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves, const LateAcceptanceSettings& settings,
+                    LateAcceptanceScratch& scratch) {
   // Late acceptance: a move is taken if it is no worse than the current roster or than the
   // roster of `history` steps ago, so the search can climb out of local optima gradually.
+  // Hard and soft penalties are weighed into one value with an adaptive hard weight, so the
+  // search may pass through rosters that break a hard rule on its way to a better feasible
+  // one; the best roster kept is still the best hard first.
   auto& late = scratch.late;
   const size_t history = late.size();
+  double& w = scratch.hardWeight;
+  w = std::max(w, settings.hardWeightFloor);
+  auto value = [&w](const rules::Tally& t) { return static_cast<double>(t.hard) * w + static_cast<double>(t.soft); };
   std::fill(late.begin(), late.end(), ev.total());
   scratch.best = ev.roster();
   rules::Tally best = ev.total();
-  eval::Move move;
+  eval::Move move, undo;
+  int infeasibleSteps = 0;
   for (int i = 0; i < moves; ++i) {
-    randomMove(e, ev.roster(), rng, move);
-    if (move.size == 0) continue;
-    const rules::Tally candidate = ev.tryMove(move);
     rules::Tally& slot = late[static_cast<size_t>(i) % history];
-    if (!(ev.total() < candidate) || !(slot < candidate)) {
-      ev.commit();
-      if (candidate < best) {
-        best = candidate;
-        scratch.best.cells = ev.roster().cells;  // same size: a copy, no allocation
+    const rules::Tally before = ev.total();
+    if (settings.chainInterval > 0 && i % settings.chainInterval == settings.chainInterval - 1) {
+      // A compound move, applied already: judged like any other, undone if rejected.
+      if (ejectionChain(e, ev, rng, settings.chainLinks, undo)) {
+        const double c = value(ev.total());
+        if (!(c <= value(before) || c <= value(slot))) {
+          ev.tryMove(undo);
+          ev.commit();
+        }
+      }
+    } else {
+      randomMove(e, ev.roster(), rng, move);
+      if (move.size > 0) {
+        const double c = value(ev.tryMove(move));
+        if (c <= value(before) || c <= value(slot)) ev.commit();
       }
     }
-    if (ev.total() < slot) slot = ev.total();
+    if (ev.total() < best) {
+      best = ev.total();
+      scratch.best.cells = ev.roster().cells;  // same size: a copy, no allocation
+    }
+    if (value(ev.total()) < value(slot)) slot = ev.total();
+    infeasibleSteps += ev.total().hard > 0;
+    if (i % kWeightPeriod == kWeightPeriod - 1) {
+      // Infeasible for more than a tenth of the period: hard costs more; otherwise a little less.
+      w = infeasibleSteps * 10 > kWeightPeriod ? std::min(w * kWeightStep, kMaxHardWeight) : std::max(w / kWeightStep, settings.hardWeightFloor);
+      infeasibleSteps = 0;
+    }
   }
   if (best < ev.total()) ev.load(scratch.best);
 }

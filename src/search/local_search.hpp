@@ -13,13 +13,26 @@ namespace rotaweave::search {
 /// Returns the number of moves accepted. No allocation.
 int hillClimb(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves);
 
+/// How late acceptance searches (from SolverOptions).
+struct LateAcceptanceSettings {
+  int chainInterval = 300;         ///< moves between ejection chains; 0: none
+  int chainLinks = 5;              ///< longest chain
+  double hardWeightFloor = 100;    ///< least soft cost charged per unit of hard cost
+};
+
 /// Buffers reused across calls, so late acceptance allocates nothing per child.
 struct LateAcceptanceScratch {
   std::vector<rules::Tally> late;  ///< history length = size()
   model::Roster best;
+  /// Soft cost charged per unit of hard cost while searching. It rises while the search stays
+  /// among infeasible rosters and falls back towards the floor once it is feasible again
+  /// (strategic oscillation); kept from one call to the next.
+  double hardWeight = 0;
 };
 
-/// Late-acceptance hill climbing for `moves` moves; leaves the best roster seen loaded in `ev`.
-void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves, LateAcceptanceScratch& scratch);
+/// Late-acceptance hill climbing for `moves` moves, with an ejection chain every
+/// `chainInterval` moves; leaves the best roster seen (hard first) loaded in `ev`.
+void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves, const LateAcceptanceSettings& settings,
+                    LateAcceptanceScratch& scratch);
 
 }  // namespace rotaweave::search

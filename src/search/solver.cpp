@@ -4,6 +4,7 @@
 #include <algorithm>
 #include <atomic>
 #include <chrono>
+#include <cmath>
 #include <memory>
 
 #ifdef _OPENMP
@@ -73,6 +74,7 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
   rules::Tally best = islands[static_cast<size_t>(bestIsland())]->best().score;
   result.history.emplace_back(elapsed(), best);
   long generation = 0, lastImprovement = 0;
+  const Cost targetSoft = std::llround(options.targetSoft * static_cast<double>(kCostScale));
 
   while (true) {
     // 2 - Stopping rules, checked between epochs.
@@ -83,7 +85,10 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
       result.stopReason = "no improvement for " + std::to_string(options.stallGenerations) + " generations";
       break;
     }
-    if (best.hard == 0 && best.soft == 0) { result.stopReason = "no penalty left"; break; }
+    if (best.hard == 0 && best.soft <= targetSoft) {
+      result.stopReason = best.soft == 0 ? "no penalty left" : "target reached";
+      break;
+    }
 
     // 3 - One epoch: every island evolves on its own.
     int epoch = options.migrationInterval;

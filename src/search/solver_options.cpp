@@ -12,6 +12,7 @@ const std::vector<ParameterInfo>& parameterTable() {
       {"time-limit", "stop after this many seconds", 0.1, 86400, d.timeLimit, false},
       {"generations", "stop after this many generations (0: no limit)", 0, 1e9, static_cast<double>(d.generations), true},
       {"stall", "stop after this many generations without improvement (0: never)", 0, 1e9, static_cast<double>(d.stallGenerations), true},
+      {"target", "stop once a roster has no hard penalty and at most this soft penalty (points)", 0, 1e12, d.targetSoft, false},
       {"seed", "random seed; the same seed, islands and generations give the same roster (0: from the clock)", 0, 1.8e19, 0, true},
       {"threads", "worker threads (0: all cores); does not change the result", 0, 256, 0, true},
       {"islands", "independent populations, one per thread at a time", 1, 64, static_cast<double>(d.islands), true},
@@ -22,6 +23,8 @@ const std::vector<ParameterInfo>& parameterTable() {
       {"block-crossover", "share of crossovers that exchange a block of days rather than whole rows", 0, 1, d.blockCrossoverShare, false},
       {"mutation-rate", "probability that each cell of a child is reassigned", 0, 1, d.mutationRate, false},
       {"local-search", "late-acceptance local-search moves tried on each child", 0, 1e7, static_cast<double>(d.localSearchMoves), true},
+      {"chain-interval", "local-search moves between ejection chains, which fill a gap in cover by passing shifts along a chain of people (0: none)", 0, 1e7, static_cast<double>(d.chainInterval), true},
+      {"hard-weight", "while searching, a hard penalty point counts as at least this many soft points; more while the search stays infeasible", 1, 1e6, d.hardWeightFloor, false},
       {"migration-interval", "generations between migrations on the island ring", 1, 1e6, static_cast<double>(d.migrationInterval), true},
       {"migrants", "best individuals sent to the next island at each migration", 0, 100, static_cast<double>(d.migrants), true},
   };
@@ -42,6 +45,7 @@ void setParameter(SolverOptions& o, const std::string& name, double v) {
   if (name == "time-limit") o.timeLimit = v;
   else if (name == "generations") o.generations = static_cast<long>(v);
   else if (name == "stall") o.stallGenerations = static_cast<long>(v);
+  else if (name == "target") o.targetSoft = v;
   else if (name == "seed") o.seed = static_cast<std::uint64_t>(v);
   else if (name == "threads") o.threads = static_cast<int>(v);
   else if (name == "islands") o.islands = static_cast<int>(v);
@@ -52,6 +56,8 @@ void setParameter(SolverOptions& o, const std::string& name, double v) {
   else if (name == "block-crossover") o.blockCrossoverShare = v;
   else if (name == "mutation-rate") o.mutationRate = v;
   else if (name == "local-search") o.localSearchMoves = static_cast<int>(v);
+  else if (name == "chain-interval") o.chainInterval = static_cast<int>(v);
+  else if (name == "hard-weight") o.hardWeightFloor = v;
   else if (name == "migration-interval") o.migrationInterval = static_cast<int>(v);
   else if (name == "migrants") o.migrants = static_cast<int>(v);
 }

@@ -12,6 +12,7 @@ struct SolverOptions {
   double timeLimit = 30;          ///< seconds
   long generations = 0;           ///< 0: no limit
   long stallGenerations = 400;    ///< stop after this many generations without improvement; 0: never
+  double targetSoft = 0;          ///< stop once a roster has no hard penalty and at most this soft penalty (points)
   std::uint64_t seed = 0;         ///< 0: pick one from the clock (the one used is reported)
   int threads = 0;                ///< 0: all cores
   int islands = 4;
@@ -22,7 +23,9 @@ struct SolverOptions {
   double crossoverRate = 0.9;
   double blockCrossoverShare = 0.5;  ///< share of crossovers that exchange a block of days
   double mutationRate = 0.01;        ///< per cell
-  int localSearchMoves = 20000;      ///< moves tried on each offspring (late acceptance)
+  int localSearchMoves = 100000;     ///< moves tried on each offspring (late acceptance)
+  int chainInterval = 300;           ///< local-search moves between ejection chains; 0: none
+  double hardWeightFloor = 100;      ///< least soft points a hard point counts for while searching
   int migrationInterval = 8;         ///< generations between migrations
   int migrants = 2;
   bool quiet = false;
