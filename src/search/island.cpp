@@ -17,7 +17,10 @@ Island::Island(const rules::RuleSet& rules, const Eligibility& eligibility, cons
 
 void Island::improve(Individual& ind, int moves) {
   ev_.load(ind.genome);
-  const LateAcceptanceSettings settings{options_.chainInterval, LateAcceptanceSettings{}.chainLinks, options_.hardWeightFloor};
+  LateAcceptanceSettings settings;
+  settings.chainInterval = options_.chainInterval;
+  settings.hardWeightFloor = options_.hardWeightFloor;
+  settings.deadline = deadline_;
   lateAcceptance(*eligibility_, ev_, rng_, moves, settings, lateScratch_);
   ind.genome.cells = ev_.roster().cells;  // same size: no allocation
   ind.score = ev_.total();
@@ -29,6 +32,7 @@ void Island::sortPopulation() {
 }
 
 void Island::initialize(const std::vector<model::Roster>& seeds, std::chrono::steady_clock::time_point deadline) {
+  deadline_ = deadline;
   const model::Problem& p = ev_.rules().problem();
   const int n = std::max(options_.population, 2);
   population_.assign(static_cast<size_t>(n), Individual{model::Roster(p.staffCount(), p.days), {}});

@@ -20,7 +20,8 @@ class Island {
   Island(const rules::RuleSet& rules, const Eligibility& eligibility, const SolverOptions& options, std::uint64_t seed);
 
   /// Builds the first population; `seeds` (e.g. a published roster) join it as they are.
-  /// Past `deadline`, the rest of the population are quick variants of the first individual.
+  /// Past `deadline`, the rest of the population are quick variants of the first individual;
+  /// local search in later generations also returns at `deadline`.
   void initialize(const std::vector<model::Roster>& seeds, std::chrono::steady_clock::time_point deadline);
   /// Runs up to `generations` generations; stops early when `stop()` returns true.
   template <class Stop>
@@ -47,6 +48,7 @@ class Island {
   std::vector<Individual> population_, offspring_;
   std::vector<int> parents_;
   LateAcceptanceScratch lateScratch_;
+  std::chrono::steady_clock::time_point deadline_ = std::chrono::steady_clock::time_point::max();
 };
 
 }  // namespace rotaweave::search

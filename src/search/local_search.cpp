@@ -5,12 +5,14 @@
 
 #include "search/ejection_chain.hpp"
 #include "search/moves.hpp"
+#include "search/stop_signal.hpp"
 
 namespace rotaweave::search {
 
 namespace {
 
 constexpr int kWeightPeriod = 256;       ///< moves between hard-weight updates
+constexpr int kClockPeriod = 2048;       ///< moves between looks at the clock and stop requests
 constexpr double kWeightStep = 1.25;     ///< factor per update
 constexpr double kMaxHardWeight = 1e9;   ///< keeps hard * weight far inside double precision
 
@@ -49,6 +51,7 @@ void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int mov
   eval::Move move, undo;
   int infeasibleSteps = 0;
   for (int i = 0; i < moves; ++i) {
+    if (i % kClockPeriod == kClockPeriod - 1 && (std::chrono::steady_clock::now() >= settings.deadline || stopRequested())) break;
     rules::Tally& slot = late[static_cast<size_t>(i) % history];
     const rules::Tally before = ev.total();
     if (settings.chainInterval > 0 && i % settings.chainInterval == settings.chainInterval - 1) {

@@ -1,5 +1,6 @@
 /// @brief Local search on the incremental evaluator with the moves of moves.hpp.
 #pragma once
+#include <chrono>
 #include <vector>
 
 #include "eval/evaluator.hpp"
@@ -18,6 +19,8 @@ struct LateAcceptanceSettings {
   int chainInterval = 300;         ///< moves between ejection chains; 0: none
   int chainLinks = 5;              ///< longest chain
   double hardWeightFloor = 100;    ///< least soft cost charged per unit of hard cost
+  /// The search returns early at this time or on a stop request (SIGINT/SIGTERM).
+  std::chrono::steady_clock::time_point deadline = std::chrono::steady_clock::time_point::max();
 };
 
 /// Buffers reused across calls, so late acceptance allocates nothing per child.
