@@ -99,6 +99,9 @@ void applyAbsence(model::Problem& p, const std::string& text, DayIdx first) {
   }
 }
 
+/// "E", "E/hca" or "off", for notes.
+std::string cellText(const model::Problem& p, StaffIdx s, TaskIdx t) { return t == kOff ? "off" : p.taskText(t, s); }
+
 }  // namespace
 
 Outcome replan(const ReplanRequest& request) {
@@ -118,7 +121,14 @@ Outcome replan(const ReplanRequest& request) {
   // Days before --from are frozen exactly as published, even where they break a rule:
   // they are reported as they are and the search cannot touch them.
   for (StaffIdx s = 0; s < problem.staffCount(); ++s)
-    for (DayIdx d = 0; d < first; ++d) problem.fixed[problem.cell(s, d)] = published.at(s, d);
+    for (DayIdx d = 0; d < first; ++d) {
+      TaskIdx& fixed = problem.fixed[problem.cell(s, d)];
+      if (fixed >= 0 && fixed != published.at(s, d))
+        std::cerr << "note: " << problem.staff[static_cast<size_t>(s)].id << " on " << problem.dateText(d) << ": the scenario fixes "
+                  << cellText(problem, s, fixed) << " but the published roster has " << cellText(problem, s, published.at(s, d))
+                  << "; days before --from are kept as published\n";
+      fixed = published.at(s, d);
+    }
   const bool listed = std::any_of(problem.rules.begin(), problem.rules.end(),
                                   [](const model::RuleSpec& r) { return r.kind == model::RuleKind::Changes; });
   if (!listed) {

@@ -249,6 +249,22 @@ def main():
         why = f"by_rule {kinds}, wrong penalties {wrong[:2]}"
     result(ok, "a changes rule in the scenario (weight 7, early_days 2, early_weight 40) is honoured", why)
 
+    # A scenario cell fixed before --from that the published roster contradicts: the published
+    # cell stays (those days have happened) and a note says so.
+    doc = scenario_with()
+    _, published_rows = read_roster(PUBLISHED)
+    person = next(p for p in doc["staff"] if "fixed" not in p and any(published_rows[p["id"]][d] for d in dates[:first]))
+    day = next(d for d in dates[:first] if published_rows[person["id"]][d])
+    person["fixed"] = [{"date": datetime.date.fromisoformat(day), "off": True}]
+    fixed_yaml = write_yaml(doc, "fixed-before-from.yaml")
+    fixed_out = os.path.join(WORK, "replan-fixed-before-from")
+    code, text = run(["replan", fixed_yaml, "--roster", PUBLISHED, "--from", FROM, "--out", fixed_out,
+                      "--time-limit", "3", "--threads", "2", "--quiet", "--seed", "1"])
+    note = f"note: {person['id']} on {day}: the scenario fixes off but the published roster has"
+    kept = code in (0, 1) and read_roster(os.path.join(fixed_out, "roster.csv"))[1][person["id"]][day] == published_rows[person["id"]][day]
+    result(note in text and kept, "a fixed cell before --from that the published roster contradicts is noted, the published cell kept",
+           text[-300:])
+
     # Bad input: exit 2, a clear message, nothing written.
     april = os.path.join(WORK, "april.csv")
     with open(april, "w", newline="") as f:
