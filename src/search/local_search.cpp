@@ -1,4 +1,4 @@
-/// @brief Acceptance rules for local search: hill climbing and late acceptance.
+/// @brief Late-acceptance local search with ejection chains and an adaptive hard weight.
 #include "search/local_search.hpp"
 
 #include <algorithm>
@@ -14,24 +14,9 @@ namespace {
 constexpr int kWeightPeriod = 256;       ///< moves between hard-weight updates
 constexpr int kClockPeriod = 2048;       ///< moves between looks at the clock and stop requests
 constexpr double kWeightStep = 1.25;     ///< factor per update
-constexpr double kMaxHardWeight = 1e9;   ///< keeps hard * weight far inside double precision
+constexpr double kMaxHardWeight = 1e9;   ///< a cap: well before it, hard alone decides
 
 }  // namespace
-
-int hillClimb(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves) {
-  eval::Move move;
-  int accepted = 0;
-  for (int i = 0; i < moves; ++i) {
-    randomMove(e, ev.roster(), rng, move);
-    if (move.size == 0) continue;
-    // Sideways moves are accepted too: they let the search drift across plateaus.
-    if (!(ev.total() < ev.tryMove(move))) {
-      ev.commit();
-      ++accepted;
-    }
-  }
-  return accepted;
-}
 
 void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves, const LateAcceptanceSettings& settings,
                     LateAcceptanceScratch& scratch) {

@@ -10,10 +10,6 @@
 
 namespace rotaweave::search {
 
-/// Tries `moves` random moves on the roster loaded in `ev`, keeping those that do not worsen it.
-/// Returns the number of moves accepted. No allocation.
-int hillClimb(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int moves);
-
 /// How late acceptance searches (from SolverOptions).
 struct LateAcceptanceSettings {
   int chainInterval = 300;         ///< moves between ejection chains; 0: none
