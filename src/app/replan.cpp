@@ -99,9 +99,6 @@ void applyAbsence(model::Problem& p, const std::string& text, DayIdx first) {
   }
 }
 
-/// "E", "E/hca" or "off", for notes.
-std::string cellText(const model::Problem& p, StaffIdx s, TaskIdx t) { return t == kOff ? "off" : p.taskText(t, s); }
-
 }  // namespace
 
 Outcome replan(const ReplanRequest& request) {
@@ -125,7 +122,7 @@ Outcome replan(const ReplanRequest& request) {
       TaskIdx& fixed = problem.fixed[problem.cell(s, d)];
       if (fixed >= 0 && fixed != published.at(s, d))
         std::cerr << "note: " << problem.staff[static_cast<size_t>(s)].id << " on " << problem.dateText(d) << ": the scenario fixes "
-                  << cellText(problem, s, fixed) << " but the published roster has " << cellText(problem, s, published.at(s, d))
+                  << problem.cellText(fixed, s) << " but the published roster has " << problem.cellText(published.at(s, d), s)
                   << "; days before --from are kept as published\n";
       fixed = published.at(s, d);
     }

@@ -10,7 +10,7 @@ std::string changesCsvText(const report::ChangeSummary& changes, const model::Pr
   std::string out = "person,date,was,now,reason\n";
   for (const report::CellChange& c : changes.cells)
     out += csvCell(p.staff[static_cast<size_t>(c.staff)].id) + "," + p.dateText(c.day) + "," +
-           csvCell(report::changeCellText(p, c.was, c.staff)) + "," + csvCell(report::changeCellText(p, c.now, c.staff)) + "," +
+           csvCell(p.cellText(c.was, c.staff)) + "," + csvCell(p.cellText(c.now, c.staff)) + "," +
            csvCell(c.reason) + "\n";
   return out;
 }

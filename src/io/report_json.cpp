@@ -65,8 +65,8 @@ std::string reportJson(const report::Report& r, const model::Problem& p) {
     for (size_t i = 0; i < r.changes->cells.size(); ++i) {
       const auto& c = r.changes->cells[i];
       out << (i ? ",\n    " : "\n    ") << "{\"staff\": " << jsonString(p.staff[static_cast<size_t>(c.staff)].id) << ", \"date\": \""
-          << p.dateText(c.day) << "\", \"was\": " << jsonString(report::changeCellText(p, c.was, c.staff))
-          << ", \"now\": " << jsonString(report::changeCellText(p, c.now, c.staff)) << ", \"reason\": " << jsonString(c.reason) << "}";
+          << p.dateText(c.day) << "\", \"was\": " << jsonString(p.cellText(c.was, c.staff))
+          << ", \"now\": " << jsonString(p.cellText(c.now, c.staff)) << ", \"reason\": " << jsonString(c.reason) << "}";
     }
     out << (r.changes->cells.empty() ? "]},\n" : "\n  ]},\n");
   }

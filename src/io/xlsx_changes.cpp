@@ -32,7 +32,7 @@ void writeChangesSheet(Book& bk) {
   lxw_row_t row = kHeadRow + 1;
   for (const report::CellChange& c : changes.cells) {
     const model::Person& who = p.staff[static_cast<size_t>(c.staff)];
-    const std::string was = report::changeCellText(p, c.was, c.staff), now = report::changeCellText(p, c.now, c.staff);
+    const std::string was = p.cellText(c.was, c.staff), now = p.cellText(c.now, c.staff);
     fit(0, who.id);
     fit(1, who.name);
     fit(3, was);

@@ -67,6 +67,8 @@ struct DemandCell {
   Cost minWeight = kWeightScale;
   Cost targetWeight = kWeightScale;
   Cost maxWeight = kWeightScale;
+  /// People the cell asks for: its target, or its minimum where that is higher.
+  int wanted() const { return min > target ? min : target; }
 };
 
 /// A roster published earlier; re-planning keeps days before `from` and charges changes after.
@@ -113,6 +115,8 @@ struct Problem {
   std::string dateText(DayIdx d) const { return formatIsoDate(start + d); }
   /// "E", or "E/hca" where the person holds more than one skill.
   std::string taskText(TaskIdx t, StaffIdx s) const;
+  /// Like taskText, but "off" for a day off: for messages, where an empty cell would be unclear.
+  std::string cellText(TaskIdx t, StaffIdx s) const { return t == kOff ? "off" : taskText(t, s); }
   /// Staff index by id, or -1.
   StaffIdx findStaff(const std::string& id) const;
   ShiftIdx findShift(const std::string& id) const;

@@ -31,10 +31,6 @@ bool isChanged(const model::Problem& p, const model::Roster& roster, StaffIdx s,
   return p.published->cells[p.cell(s, d)] != roster.at(s, d);
 }
 
-std::string changeCellText(const model::Problem& p, TaskIdx task, StaffIdx staff) {
-  return task == kOff ? std::string("off") : p.taskText(task, staff);
-}
-
 ChangeSummary computeChanges(const model::Problem& p, const model::Roster& roster) {
   ChangeSummary out;
   if (!p.published) return out;
@@ -100,7 +96,7 @@ std::string renderChangesText(const ChangeSummary& changes, const model::Problem
   out << "  " << pad("person", 14) << pad("date", 12) << pad("was", 8) << pad("now", 8) << "reason\n";
   for (const CellChange& c : changes.cells)
     out << "  " << pad(p.staff[static_cast<size_t>(c.staff)].id, 14) << pad(p.dateText(c.day), 12)
-        << pad(changeCellText(p, c.was, c.staff), 8) << pad(changeCellText(p, c.now, c.staff), 8) << c.reason << "\n";
+        << pad(p.cellText(c.was, c.staff), 8) << pad(p.cellText(c.now, c.staff), 8) << c.reason << "\n";
   return out.str();
 }
 

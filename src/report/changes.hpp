@@ -40,7 +40,4 @@ std::string changesLine(const ChangeSummary& changes, const model::Problem& prob
 /// The CHANGES section of report.txt (ends with a newline).
 std::string renderChangesText(const ChangeSummary& changes, const model::Problem& problem);
 
-/// "off", "E" or "E/hca": the text of a task in the changes listings.
-std::string changeCellText(const model::Problem& problem, TaskIdx task, StaffIdx staff);
-
 }  // namespace rotaweave::report

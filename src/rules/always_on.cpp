@@ -6,9 +6,7 @@
 namespace rotaweave::rules {
 namespace {
 
-std::string cellText(const RowView& row, TaskIdx t) {
-  return t == kOff ? std::string("off") : row.problem->taskText(t, row.staff);
-}
+std::string cellText(const RowView& row, TaskIdx t) { return row.problem->cellText(t, row.staff); }
 
 }  // namespace
 

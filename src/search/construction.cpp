@@ -37,7 +37,7 @@ void greedyRoster(const Eligibility& e, eval::Evaluator& ev, Rng& rng, double no
     }
     std::sort(cells.begin(), cells.end());
     for (const auto& [candidates, t] : cells) {
-      const int target = std::max(p.demandAt(d, t).min, p.demandAt(d, t).target);
+      const int target = p.demandAt(d, t).wanted();
       int have = 0;
       for (StaffIdx s = 0; s < g.staff; ++s) have += ev.roster().at(s, d) == t;
       for (; have < target; ++have) {

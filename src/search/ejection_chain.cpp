@@ -14,7 +14,7 @@ constexpr int kMaxLinks = 8;
 /// How many more people (d, t) wants before reaching its target (or minimum).
 int gap(const model::Problem& p, const eval::Evaluator& ev, DayIdx d, TaskIdx t) {
   const model::DemandCell& c = p.demandAt(d, t);
-  return c.defined ? std::max(c.min, c.target) - ev.coverCount(d, t) : 0;
+  return c.defined ? c.wanted() - ev.coverCount(d, t) : 0;
 }
 
 /// A random (day, task) below its target, by reservoir sampling; false if cover is met.
