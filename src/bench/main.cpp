@@ -43,10 +43,18 @@ double threadCpuSeconds() {
   return static_cast<double>(ts.tv_sec) + static_cast<double>(ts.tv_nsec) * 1e-9;
 }
 
-double peakRssMb() {
+rusage selfUsage() {
   rusage u{};
   getrusage(RUSAGE_SELF, &u);
-  return static_cast<double>(u.ru_maxrss) / 1024.0;
+  return u;
+}
+
+double peakRssMb() { return static_cast<double>(selfUsage().ru_maxrss) / 1024.0; }
+
+/// CPU time of the whole process, all threads, user and system.
+double processCpuSeconds() {
+  const rusage u = selfUsage();
+  return static_cast<double>(u.ru_utime.tv_sec + u.ru_stime.tv_sec) + static_cast<double>(u.ru_utime.tv_usec + u.ru_stime.tv_usec) * 1e-6;
 }
 
 /// Best and median of five 0.4 s samples of a rate: a shared machine's noise only ever slows
@@ -113,12 +121,6 @@ rw::search::SolveResult solveFor(const rw::rules::RuleSet& set, int threads, lon
   o.stallGenerations = 0;
   o.timeLimit = 3600;
   return rw::search::solve(set, o, {}, nullptr);
-}
-
-double processCpuSeconds() {
-  rusage u{};
-  getrusage(RUSAGE_SELF, &u);
-  return static_cast<double>(u.ru_utime.tv_sec + u.ru_stime.tv_sec) + static_cast<double>(u.ru_utime.tv_usec + u.ru_stime.tv_usec) * 1e-6;
 }
 
 /// The fastest of three identical solves: like the rates above, noise from other tenants of
