@@ -4,11 +4,6 @@
 #include "rules/row_rules.hpp"
 
 namespace rotaweave::rules {
-namespace {
-
-std::string cellText(const RowView& row, TaskIdx t) { return row.problem->cellText(t, row.staff); }
-
-}  // namespace
 
 void SkillRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
   const auto& p = *row.problem;
@@ -44,8 +39,8 @@ void FixedRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out
     const TaskIdx want = fixed[d];
     if (want < 0 || want == row.tasks[d]) continue;
     charge(row, tally, out, kOne, {d, d}, [&] {
-      return row.personId() + ": fixed to " + cellText(row, want) + " on " + row.date(d) + " but the roster has " +
-             cellText(row, row.tasks[d]);
+      return row.personId() + ": fixed to " + row.problem->cellText(want, row.staff) + " on " + row.date(d) + " but the roster has " +
+             row.problem->cellText(row.tasks[d], row.staff);
     });
   }
 }
@@ -77,8 +72,8 @@ void ChangesRule::score(const RowView& row, Tally& tally, std::vector<Breach>* o
     if (was == row.tasks[d]) continue;
     const bool early = d < published.from + spec().earlyDays;
     charge(row, tally, out, kOne, {d, d}, [&] {
-      return row.personId() + ": " + row.date(d) + " changed from " + cellText(row, was) + " to " +
-             cellText(row, row.tasks[d]) + (early ? " at short notice" : "");
+      return row.personId() + ": " + row.date(d) + " changed from " + row.problem->cellText(was, row.staff) + " to " +
+             row.problem->cellText(row.tasks[d], row.staff) + (early ? " at short notice" : "");
     }, early ? spec().earlyWeight : spec().weight);
   }
 }
