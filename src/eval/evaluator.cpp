@@ -6,6 +6,14 @@
 
 namespace rotaweave::eval {
 
+namespace {
+
+/// tryMoveWithin stops early only this far (in 1/kCostScale units) above its limit: far more
+/// than the rounding error of summing penalties in doubles, far less than any penalty step.
+constexpr double kLimitMargin = 1.0;
+
+}  // namespace
+
 Evaluator::Evaluator(const rules::RuleSet& rules)
     : rules_(&rules), p_(&rules.problem()), days_(p_->days), tasks_(p_->taskCount()), history_(p_->maxHistory) {
   taskShift_.resize(static_cast<size_t>(tasks_));
@@ -193,42 +201,25 @@ void Evaluator::load(const model::Roster& roster) {
 }
 
 Tally Evaluator::tryMove(const Move& move) {
+  evaluateMove(move, nullptr);
+  return pendingTotal_;
+}
+
+bool Evaluator::tryMoveWithin(const Move& move, double hardWeight, double limit) {
+  const Limit cap{hardWeight, limit};
+  return evaluateMove(move, &cap);
+}
+
+bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
   pending_ = move;
+  pendingReady_ = false;
+  pendingTotal_ = total_;
   Tally delta;
   const auto& fair = rules_->fairShares();
   for (size_t r = 0; r < fair.size(); ++r) pendingFairCount_[r] = 0;
+  auto weighed = [limit](const Tally& t) { return static_cast<double>(t.hard) * limit->hardWeight + static_cast<double>(t.soft); };
 
-  // 1 - Rows: penalty is additive per person, so only the touched rows are re-scored.
-  pendingRowCount_ = 0;
-  for (const CellChange& c : move) {
-    int i = 0;
-    while (i < pendingRowCount_ && pendingRows_[static_cast<size_t>(i)].staff != c.staff) ++i;
-    PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
-    if (i == pendingRowCount_) {
-      ++pendingRowCount_;
-      pr.staff = c.staff;
-      pr.cells = rowCells_[static_cast<size_t>(c.staff)];
-      std::copy_n(roster_.row(c.staff), days_, rowScratch_.data() + i * days_);
-    }
-    // Cell-local rules: swap the old cell's tabulated penalty for the new one's.
-    pr.cells += cellCost(c.staff, c.day, c.task) - cellCost(c.staff, c.day, roster_.at(c.staff, c.day));
-    rowScratch_[static_cast<size_t>(i * days_ + c.day)] = c.task;
-  }
-  for (int i = 0; i < pendingRowCount_; ++i) {
-    PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
-    const rules::RowView row = view(pr.staff, rowScratch_.data() + i * days_);
-    pr.tally = pr.cells + sequenceTally(row);
-    delta += pr.tally - rowTally_[static_cast<size_t>(pr.staff)];
-    for (size_t r = 0; r < fair.size(); ++r) {
-      const int member = fair[r].memberIndex(pr.staff);
-      if (member < 0) continue;
-      const int count = fair[r].countRow(row);
-      if (count != fairCount_[r][static_cast<size_t>(member)])
-        pendingFair_[r][static_cast<size_t>(pendingFairCount_[r]++)] = PendingFair{member, count};
-    }
-  }
-
-  // 2 - Cover: re-score the (day, task) cells whose counts change, then restore the counts.
+  // 1 - Cover: re-score the (day, task) cells whose counts change, then restore the counts.
   std::array<int, 2 * Move::kCapacity> keys;
   int nKeys = 0;
   if (++stamp_ == 0) std::fill(keyStamp_.begin(), keyStamp_.end(), 0), stamp_ = 1;  // wrapped around
@@ -264,6 +255,53 @@ Tally Evaluator::tryMove(const Move& move) {
   shiftCounts(-1);
   delta += pendingCover_;
 
+  // 2 - Rows: penalty is additive per person, so only the touched rows are re-scored.
+  pendingRowCount_ = 0;
+  for (const CellChange& c : move) {
+    int i = 0;
+    while (i < pendingRowCount_ && pendingRows_[static_cast<size_t>(i)].staff != c.staff) ++i;
+    PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
+    if (i == pendingRowCount_) {
+      ++pendingRowCount_;
+      pr.staff = c.staff;
+      pr.cells = rowCells_[static_cast<size_t>(c.staff)];
+      std::copy_n(roster_.row(c.staff), days_, rowScratch_.data() + i * days_);
+    }
+    // Cell-local rules: swap the old cell's tabulated penalty for the new one's.
+    pr.cells += cellCost(c.staff, c.day, c.task) - cellCost(c.staff, c.day, roster_.at(c.staff, c.day));
+    rowScratch_[static_cast<size_t>(i * days_ + c.day)] = c.task;
+  }
+  // With a limit: the least the total can still come to. Sequence rules not scored yet add
+  // nothing below zero, and fair share can at most fall to zero.
+  Tally floor = total_ + delta;
+  if (limit) {
+    for (int i = 0; i < pendingRowCount_; ++i)
+      floor += pendingRows_[static_cast<size_t>(i)].cells - rowTally_[static_cast<size_t>(pendingRows_[static_cast<size_t>(i)].staff)];
+    for (const Tally& t : fairTally_) floor -= t;
+  }
+  for (int i = 0; i < pendingRowCount_; ++i) {
+    PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
+    const rules::RowView row = view(pr.staff, rowScratch_.data() + i * days_);
+    Tally sequence;
+    for (const rules::RowRule* rule : rules_->sequenceRulesFor(pr.staff)) {
+      const Tally before = sequence;
+      rule->score(row, sequence, nullptr);
+      if (!limit) continue;
+      floor += sequence - before;
+      // A margin far above rounding error, so only moves tryMove would reject stop here.
+      if (weighed(floor) > limit->value + kLimitMargin) return pendingRowCount_ = 0, false;
+    }
+    pr.tally = pr.cells + sequence;
+    delta += pr.tally - rowTally_[static_cast<size_t>(pr.staff)];
+    for (size_t r = 0; r < fair.size(); ++r) {
+      const int member = fair[r].memberIndex(pr.staff);
+      if (member < 0) continue;
+      const int count = fair[r].countRow(row);
+      if (count != fairCount_[r][static_cast<size_t>(member)])
+        pendingFair_[r][static_cast<size_t>(pendingFairCount_[r]++)] = PendingFair{member, count};
+    }
+  }
+
   // 3 - Fair share: the mean moves with any count, so the group is re-scored whole.
   for (size_t r = 0; r < fair.size(); ++r) {
     if (pendingFairCount_[r] == 0) continue;
@@ -283,10 +321,14 @@ Tally Evaluator::tryMove(const Move& move) {
     delta += pendingFairTally_[r] - fairTally_[r];
   }
   pendingTotal_ = total_ + delta;
-  return pendingTotal_;
+  if (limit && weighed(pendingTotal_) > limit->value) return pendingRowCount_ = 0, false;
+  return pendingReady_ = true;
 }
 
+
 void Evaluator::commit() {
+  assert(pendingReady_ && "commit() needs a tryMove() or a tryMoveWithin() that returned true");
+  pendingReady_ = false;
   for (const CellChange& c : pending_) {
     TaskIdx& cell = roster_.at(c.staff, c.day);
     --coverCount_[static_cast<size_t>(c.day * tasks_ + cell)];

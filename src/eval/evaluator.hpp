@@ -31,7 +31,11 @@ class Evaluator {
   Tally total() const { return total_; }
   /// Total after the move, leaving the loaded roster unchanged. Cells must be distinct.
   Tally tryMove(const Move& move);
-  /// Applies the move last passed to tryMove().
+  /// True if the total after the move, weighed as hard * hardWeight + soft, is at most `limit`;
+  /// then commit() may apply it. Gives up (false) as soon as the rules scored so far prove the
+  /// move costs more, so rejected moves are cheap; accepts and rejects exactly as tryMove would.
+  bool tryMoveWithin(const Move& move, double hardWeight, double limit);
+  /// Applies the move last passed to tryMove(), or to a tryMoveWithin() that returned true.
   void commit();
   /// People on task t on day d in the loaded roster.
   int coverCount(DayIdx d, TaskIdx t) const { return coverCount_[static_cast<size_t>(d * tasks_ + t)]; }
@@ -43,6 +47,10 @@ class Evaluator {
   rules::RowView view(StaffIdx s, const TaskIdx* tasks);
   /// Penalty of a row: sequence rules scored on the row, cell-local rules read from the table.
   Tally rowTally(const rules::RowView& row) const { return cellSum(row.staff, row.tasks) + sequenceTally(row); }
+  /// A cap on the weighed total after a move, for tryMoveWithin; none in tryMove.
+  struct Limit { double hardWeight, value; };
+  /// Scores the move into the pending state; false if `limit` is set and proved exceeded.
+  bool evaluateMove(const Move& move, const Limit* limit);
   Tally sequenceTally(const rules::RowView& row) const;
   Tally cellSum(StaffIdx s, const TaskIdx* tasks) const;
   void tabulateCellRules();
@@ -89,6 +97,7 @@ class Evaluator {
   std::vector<long> pendingFairSum_;
   Tally pendingCover_;
   Tally pendingTotal_;
+  bool pendingReady_ = false;  ///< the pending move was scored in full and may be committed
 };
 
 }  // namespace rotaweave::eval

@@ -50,10 +50,7 @@ void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int mov
       }
     } else {
       randomMove(e, ev.roster(), rng, move);
-      if (move.size > 0) {
-        const double c = value(ev.tryMove(move));
-        if (c <= value(before) || c <= value(slot)) ev.commit();
-      }
+      if (move.size > 0 && ev.tryMoveWithin(move, w, std::max(value(before), value(slot)))) ev.commit();
     }
     if (ev.total() < best) {
       best = ev.total();

@@ -1,4 +1,5 @@
-/// @brief Property: the incremental score of every move equals a full re-evaluation after it.
+/// @brief Property: the incremental score of every move equals a full re-evaluation after it,
+/// and the bounded try accepts a move exactly when that score is within its limit.
 #include <doctest/doctest.h>
 
 #include <filesystem>
@@ -29,11 +30,22 @@ void checkDeltas(const model::Problem& p, int moves, std::uint64_t seed) {
     // Also try moves that ignore eligibility (a hand-made roster may hold anything).
     if (i % 7 == 0 && move.size == 0) move.add(rng.below(p.staffCount()), rng.below(p.days), static_cast<TaskIdx>(rng.below(p.taskCount())));
     if (move.size == 0) continue;
-    const rules::Tally predicted = inc.tryMove(move);
     model::Roster after = inc.roster();
     for (const auto& c : move) after.at(c.staff, c.day) = c.task;
     const rules::Tally actual = full.score(after);
-    REQUIRE(predicted == actual);
+    // The bounded try accepts exactly the moves whose weighed total is within its limit.
+    const double weight = i % 3 == 0 ? 1.0 : (i % 3 == 1 ? 100.0 : 7919.5);
+    const double value = static_cast<double>(actual.hard) * weight + static_cast<double>(actual.soft);
+    REQUIRE(inc.tryMoveWithin(move, weight, value));
+    REQUIRE_FALSE(inc.tryMoveWithin(move, weight, value - 0.5));
+    const double limit = value * 2 * rng.uniform();
+    REQUIRE(inc.tryMoveWithin(move, weight, limit) == (value <= limit));
+    const bool bounded = rng.chance(0.5);  // commit after the bounded try or after tryMove
+    if (bounded) {
+      REQUIRE(inc.tryMoveWithin(move, weight, value + 1));
+    } else {
+      REQUIRE(inc.tryMove(move) == actual);
+    }
     if (rng.chance(0.5)) {
       inc.commit();
       REQUIRE(inc.total() == actual);
