@@ -213,7 +213,6 @@ bool Evaluator::tryMoveWithin(const Move& move, double hardWeight, double limit)
 bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
   pending_ = move;
   pendingReady_ = false;
-  pendingTotal_ = total_;
   Tally delta;
   const auto& fair = rules_->fairShares();
   for (size_t r = 0; r < fair.size(); ++r) pendingFairCount_[r] = 0;
@@ -273,11 +272,11 @@ bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
   }
   // With a limit: the least the total can still come to. Sequence rules not scored yet add
   // nothing below zero, and fair share can at most fall to zero.
-  Tally floor = total_ + delta;
+  Tally least = total_ + delta;
   if (limit) {
     for (int i = 0; i < pendingRowCount_; ++i)
-      floor += pendingRows_[static_cast<size_t>(i)].cells - rowTally_[static_cast<size_t>(pendingRows_[static_cast<size_t>(i)].staff)];
-    for (const Tally& t : fairTally_) floor -= t;
+      least += pendingRows_[static_cast<size_t>(i)].cells - rowTally_[static_cast<size_t>(pendingRows_[static_cast<size_t>(i)].staff)];
+    for (const Tally& t : fairTally_) least -= t;
   }
   for (int i = 0; i < pendingRowCount_; ++i) {
     PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
@@ -287,9 +286,9 @@ bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
       const Tally before = sequence;
       rule->score(row, sequence, nullptr);
       if (!limit) continue;
-      floor += sequence - before;
+      least += sequence - before;
       // A margin far above rounding error, so only moves tryMove would reject stop here.
-      if (weighed(floor) > limit->value + kLimitMargin) return pendingRowCount_ = 0, false;
+      if (weighed(least) > limit->value + kLimitMargin) return pendingRowCount_ = 0, false;
     }
     pr.tally = pr.cells + sequence;
     delta += pr.tally - rowTally_[static_cast<size_t>(pr.staff)];
