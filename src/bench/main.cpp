@@ -108,7 +108,7 @@ Rate movesPerSecond(const rw::rules::RuleSet& set, const rw::search::Eligibility
       rw::search::randomMove(e, ev.roster(), rng, move);
       if (move.size == 0) continue;
       const rw::rules::Tally now = ev.total();
-      const bool noWorse = bounded ? ev.tryMoveWithin(move, kHardWeight, static_cast<double>(now.hard) * kHardWeight + static_cast<double>(now.soft))
+      const bool noWorse = bounded ? ev.tryMoveWithin(move, kHardWeight, now.weighed(kHardWeight))
                                    : !(now < ev.tryMove(move));
       if (noWorse && rng.below(10) == 0) ev.commit();
       ++n;

@@ -216,7 +216,6 @@ bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
   Tally delta;
   const auto& fair = rules_->fairShares();
   for (size_t r = 0; r < fair.size(); ++r) pendingFairCount_[r] = 0;
-  auto weighed = [limit](const Tally& t) { return static_cast<double>(t.hard) * limit->hardWeight + static_cast<double>(t.soft); };
 
   // 1 - Cover: re-score the (day, task) cells whose counts change, then restore the counts.
   std::array<int, 2 * Move::kCapacity> keys;
@@ -274,8 +273,10 @@ bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
   // nothing below zero, and fair share can at most fall to zero.
   Tally least = total_ + delta;
   if (limit) {
-    for (int i = 0; i < pendingRowCount_; ++i)
-      least += pendingRows_[static_cast<size_t>(i)].cells - rowTally_[static_cast<size_t>(pendingRows_[static_cast<size_t>(i)].staff)];
+    for (int i = 0; i < pendingRowCount_; ++i) {
+      const PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
+      least += pr.cells - rowTally_[static_cast<size_t>(pr.staff)];
+    }
     for (const Tally& t : fairTally_) least -= t;
   }
   for (int i = 0; i < pendingRowCount_; ++i) {
@@ -288,7 +289,7 @@ bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
       if (!limit) continue;
       least += sequence - before;
       // A margin far above rounding error, so only moves tryMove would reject stop here.
-      if (weighed(least) > limit->value + kLimitMargin) return pendingRowCount_ = 0, false;
+      if (least.weighed(limit->hardWeight) > limit->value + kLimitMargin) return false;
     }
     pr.tally = pr.cells + sequence;
     delta += pr.tally - rowTally_[static_cast<size_t>(pr.staff)];
@@ -320,10 +321,9 @@ bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
     delta += pendingFairTally_[r] - fairTally_[r];
   }
   pendingTotal_ = total_ + delta;
-  if (limit && weighed(pendingTotal_) > limit->value) return pendingRowCount_ = 0, false;
+  if (limit && pendingTotal_.weighed(limit->hardWeight) > limit->value) return false;
   return pendingReady_ = true;
 }
-
 
 void Evaluator::commit() {
   assert(pendingReady_ && "commit() needs a tryMove() or a tryMoveWithin() that returned true");

@@ -36,6 +36,9 @@ struct Tally {
   friend bool operator<(const Tally& a, const Tally& b) {
     return a.hard != b.hard ? a.hard < b.hard : a.soft < b.soft;
   }
+  /// Hard and soft as one value, a hard unit counting `hardWeight` soft ones (local search
+  /// and Evaluator::tryMoveWithin must weigh alike, so both call this).
+  double weighed(double hardWeight) const { return static_cast<double>(hard) * hardWeight + static_cast<double>(soft); }
 };
 
 }  // namespace rotaweave::rules

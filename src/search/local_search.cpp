@@ -29,7 +29,7 @@ void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int mov
   const size_t history = late.size();
   double& w = scratch.hardWeight;
   w = std::max(w, settings.hardWeightFloor);
-  auto value = [&w](const rules::Tally& t) { return static_cast<double>(t.hard) * w + static_cast<double>(t.soft); };
+  auto value = [&w](const rules::Tally& t) { return t.weighed(w); };
   std::fill(late.begin(), late.end(), ev.total());
   scratch.best = ev.roster();
   rules::Tally best = ev.total();
