@@ -40,6 +40,11 @@ class Evaluator {
   /// People on task t on day d in the loaded roster.
   int coverCount(DayIdx d, TaskIdx t) const { return coverCount_[static_cast<size_t>(d * tasks_ + t)]; }
 
+  /// Penalty of the cell-local rules (requests, skills, absences, changes) if s takes t on day d.
+  const Tally& cellCost(StaffIdx s, DayIdx d, TaskIdx t) const {
+    return cellCost_[(static_cast<size_t>(s) * static_cast<size_t>(days_) + static_cast<size_t>(d)) * static_cast<size_t>(tasks_) + static_cast<size_t>(t)];
+  }
+
   const rules::RuleSet& rules() const { return *rules_; }
 
  private:
@@ -54,9 +59,6 @@ class Evaluator {
   Tally sequenceTally(const rules::RowView& row) const;
   Tally cellSum(StaffIdx s, const TaskIdx* tasks) const;
   void tabulateCellRules();
-  const Tally& cellCost(StaffIdx s, DayIdx d, TaskIdx t) const {
-    return cellCost_[(static_cast<size_t>(s) * static_cast<size_t>(days_) + static_cast<size_t>(d)) * static_cast<size_t>(tasks_) + static_cast<size_t>(t)];
-  }
   Tally fairTally(size_t rule, const int* counts, long sum) const;
   void countCover(const model::Roster& roster, std::vector<int>& counts) const;
 

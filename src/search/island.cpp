@@ -11,7 +11,7 @@
 namespace rotaweave::search {
 
 Island::Island(const rules::RuleSet& rules, const Eligibility& eligibility, const SolverOptions& options, std::uint64_t seed)
-    : eligibility_(&eligibility), options_(options), ev_(rules), rng_(seed) {
+    : eligibility_(&eligibility), options_(options), ev_(rules), rng_(seed), refit_(rules, eligibility) {
   lateScratch_.late.resize(50);
 }
 
@@ -20,6 +20,9 @@ void Island::improve(Individual& ind, int moves) {
   LateAcceptanceSettings settings;
   settings.chainInterval = options_.chainInterval;
   settings.hardWeightFloor = options_.hardWeightFloor;
+  settings.refit = &refit_;
+  settings.refitInterval = options_.refitInterval;
+  settings.refitPasses = options_.refitPasses;
   settings.deadline = deadline_;
   lateAcceptance(*eligibility_, ev_, rng_, moves, settings, lateScratch_);
   ind.genome.cells = ev_.roster().cells;  // same size: no allocation

@@ -11,6 +11,7 @@
 #include "search/individual.hpp"
 #include "search/local_search.hpp"
 #include "search/rng.hpp"
+#include "search/row_refit.hpp"
 #include "search/solver_options.hpp"
 
 namespace rotaweave::search {
@@ -48,6 +49,7 @@ class Island {
   std::vector<Individual> population_, offspring_;
   std::vector<int> parents_;
   LateAcceptanceScratch lateScratch_;
+  RowRefit refit_;
   std::chrono::steady_clock::time_point deadline_ = std::chrono::steady_clock::time_point::max();
 };
 

@@ -39,7 +39,12 @@ void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int mov
     if (i % kClockPeriod == kClockPeriod - 1 && (std::chrono::steady_clock::now() >= settings.deadline || stopRequested())) break;
     rules::Tally& slot = late[static_cast<size_t>(i) % history];
     const rules::Tally before = ev.total();
-    if (settings.chainInterval > 0 && i % settings.chainInterval == settings.chainInterval - 1) {
+    if (settings.refit && settings.refitInterval > 0 && i % settings.refitInterval == settings.refitInterval - 1) {
+      if (refitChain(e, ev, *settings.refit, rng, w, settings.refitPasses, scratch.refitUndo)) {
+        const double c = value(ev.total());
+        if (!(c <= value(before) || c <= value(slot))) undoRefitChain(ev, scratch.refitUndo);
+      }
+    } else if (settings.chainInterval > 0 && i % settings.chainInterval == settings.chainInterval - 1) {
       // A compound move, applied already: judged like any other, undone if rejected.
       if (ejectionChain(e, ev, rng, settings.chainLinks, undo)) {
         const double c = value(ev.total());

@@ -6,6 +6,7 @@
 #include "eval/evaluator.hpp"
 #include "search/eligibility.hpp"
 #include "search/moves.hpp"
+#include "search/refit_chain.hpp"
 #include "search/rng.hpp"
 
 namespace rotaweave::search {
@@ -15,6 +16,9 @@ struct LateAcceptanceSettings {
   int chainInterval = 300;         ///< moves between ejection chains; 0: none
   int chainLinks = 5;              ///< longest chain
   double hardWeightFloor = 100;    ///< least soft cost charged per unit of hard cost
+  RowRefit* refit = nullptr;       ///< the island's row re-fitter, for refit chains; none: no chains
+  int refitInterval = 0;           ///< moves between refit chains; 0: none
+  int refitPasses = 1;             ///< rounds in which everyone else re-fits in answer to the forced row
   /// The search returns early at this time or on a stop request (SIGINT/SIGTERM).
   std::chrono::steady_clock::time_point deadline = std::chrono::steady_clock::time_point::max();
 };
@@ -23,6 +27,7 @@ struct LateAcceptanceSettings {
 struct LateAcceptanceScratch {
   std::vector<rules::Tally> late;  ///< history length = size()
   model::Roster best;
+  RefitUndo refitUndo;
   /// Soft cost charged per unit of hard cost while searching. It rises while the search stays
   /// among infeasible rosters and falls back towards the floor once it is feasible again
   /// (strategic oscillation); kept from one call to the next.

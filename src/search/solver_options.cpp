@@ -24,6 +24,8 @@ const std::vector<ParameterInfo>& parameterTable() {
       {"mutation-rate", "probability that each cell of a child is reassigned", 0, 1, d.mutationRate, false},
       {"local-search", "late-acceptance local-search moves tried on each child", 0, 1e7, static_cast<double>(d.localSearchMoves), true},
       {"chain-interval", "local-search moves between ejection chains, which fill a gap in cover by passing shifts along a chain of people (0: none)", 0, 1e7, static_cast<double>(d.chainInterval), true},
+      {"refit-interval", "local-search moves between refit chains, which force one person's row to change on one day, re-fit it whole and let others re-fit theirs in answer (0: none)", 0, 1e7, static_cast<double>(d.refitInterval), true},
+      {"refit-passes", "rounds in which everyone else re-fits their row in answer, in each refit chain", 0, 10, static_cast<double>(d.refitPasses), true},
       {"hard-weight", "while searching, a hard penalty point counts as at least this many soft points; more while the search stays infeasible", 1, 1e6, d.hardWeightFloor, false},
       {"migration-interval", "generations between migrations on the island ring", 1, 1e6, static_cast<double>(d.migrationInterval), true},
       {"migrants", "best individuals sent to the next island at each migration", 0, 100, static_cast<double>(d.migrants), true},
@@ -57,6 +59,8 @@ void setParameter(SolverOptions& o, const std::string& name, double v) {
   else if (name == "mutation-rate") o.mutationRate = v;
   else if (name == "local-search") o.localSearchMoves = static_cast<int>(v);
   else if (name == "chain-interval") o.chainInterval = static_cast<int>(v);
+  else if (name == "refit-interval") o.refitInterval = static_cast<int>(v);
+  else if (name == "refit-passes") o.refitPasses = static_cast<int>(v);
   else if (name == "hard-weight") o.hardWeightFloor = v;
   else if (name == "migration-interval") o.migrationInterval = static_cast<int>(v);
   else if (name == "migrants") o.migrants = static_cast<int>(v);

@@ -25,6 +25,8 @@ struct SolverOptions {
   double mutationRate = 0.01;        ///< per cell
   int localSearchMoves = 100000;     ///< moves tried on each offspring (late acceptance)
   int chainInterval = 300;           ///< local-search moves between ejection chains; 0: none
+  int refitInterval = 0;             ///< local-search moves between refit chains; 0: none
+  int refitPasses = 1;               ///< rounds of answering re-fits by everyone else in a refit chain
   double hardWeightFloor = 100;      ///< least soft points a hard point counts for while searching
   int migrationInterval = 8;         ///< generations between migrations
   int migrants = 2;

@@ -1,0 +1,61 @@
+/// @brief Refit chains.
+#include "search/refit_chain.hpp"
+
+#include <algorithm>
+
+namespace rotaweave::search {
+
+namespace {
+
+/// Applies a re-fitted row and records what it replaced.
+void applyRow(eval::Evaluator& ev, const eval::Move& move, RefitUndo& undo) {
+  if (move.size == 0) return;
+  if (undo.size == static_cast<int>(undo.rows.size())) undo.rows.emplace_back();
+  eval::Move& back = undo.rows[static_cast<size_t>(undo.size++)];
+  back.clear();
+  for (const auto& cell : move) back.add(cell.staff, cell.day, ev.roster().at(cell.staff, cell.day));
+  ev.tryMove(move);
+  ev.commit();
+}
+
+}  // namespace
+
+bool refitChain(const Eligibility& e, eval::Evaluator& ev, RowRefit& refit, Rng& rng, double hardWeight, int passes,
+                RefitUndo& undo) {
+  undo.size = 0;
+  const auto& free = e.freeCells();
+  if (free.empty()) return false;
+  const model::Problem& p = ev.rules().problem();
+  const int cell = free[static_cast<size_t>(rng.below(static_cast<int>(free.size())))];
+  const StaffIdx s = cell / p.days;
+  const DayIdx flip = cell % p.days;
+  // The window: the whole period if it fits in one move, else a stretch around the forced day.
+  const int length = std::min(p.days, RowRefit::kMaxWindow);
+  const DayIdx first = std::clamp(flip - length / 2, 0, p.days - length);
+
+  auto& needs = undo.needs;
+  needs.assign(static_cast<size_t>(p.days), RowRefit::kAnyTask);
+  needs[static_cast<size_t>(flip)] = ev.roster().at(s, flip) == kOff ? RowRefit::kAnyShift : kOff;
+  eval::Move move;
+  if (refit.refit(ev, s, first, length, needs.data(), hardWeight, move)) applyRow(ev, move, undo);
+  if (undo.size == 0) return false;
+  auto& order = undo.order;
+  order.clear();
+  for (StaffIdx other = 0; other < p.staffCount(); ++other)
+    if (other != s) order.push_back(other);
+  for (int pass = 0; pass < passes; ++pass) {
+    for (size_t i = order.size(); i > 1; --i) std::swap(order[i - 1], order[static_cast<size_t>(rng.below(static_cast<int>(i)))]);
+    for (const StaffIdx other : order)
+      if (refit.refit(ev, other, first, length, nullptr, hardWeight, move)) applyRow(ev, move, undo);
+  }
+  return true;
+}
+
+void undoRefitChain(eval::Evaluator& ev, const RefitUndo& undo) {
+  for (int i = undo.size - 1; i >= 0; --i) {
+    ev.tryMove(undo.rows[static_cast<size_t>(i)]);
+    ev.commit();
+  }
+}
+
+}  // namespace rotaweave::search

@@ -1,0 +1,221 @@
+/// @brief Row re-fit by dynamic programming over one person's days.
+#include "search/row_refit.hpp"
+
+#include <algorithm>
+
+namespace rotaweave::search {
+
+namespace {
+
+bool applies(const model::RuleSpec& r, StaffIdx s) { return r.hard && r.inScope[static_cast<size_t>(s)] != 0; }
+
+}  // namespace
+
+RowRefit::RowRefit(const rules::RuleSet& rules, const Eligibility& e) : p_(&rules.problem()), e_(&e) {
+  for (const model::Task& t : p_->tasks) {
+    taskShift_.push_back(t.shift);
+    taskPaid_.push_back(t.shift == kNoShift ? 0 : p_->shifts[static_cast<size_t>(t.shift)].paidMinutes());
+  }
+  for (StaffIdx s = 0; s < p_->staffCount(); ++s) limits_.push_back(limitsFor(rules, s));
+}
+
+RowRefit::Limits RowRefit::limitsFor(const rules::RuleSet& rules, StaffIdx s) const {
+  using model::RuleKind;
+  const int shifts = static_cast<int>(p_->shifts.size());
+  Limits lim;
+  lim.forbid.assign(static_cast<size_t>((shifts + 1) * (shifts + 1)), 0);
+  auto forbid = [&](ShiftIdx a, ShiftIdx b) { lim.forbid[static_cast<size_t>((a + 1) * (shifts + 1) + b + 1)] = 1; };
+  auto tighter = [](int& bound, int value, bool lower) {  // lower: keep the smaller (a maximum)
+    if (bound < 0 || (lower ? value < bound : value > bound)) bound = value;
+  };
+  for (const model::RuleSpec& r : rules.problem().rules) {
+    if (!applies(r, s)) continue;
+    switch (r.kind) {
+      case RuleKind::ForbidSequence:
+        if (r.sequence.size() == 2 && r.sequence[0] != kNoShift && r.sequence[1] != kNoShift) forbid(r.sequence[0], r.sequence[1]);
+        break;
+      case RuleKind::MinRest:  // on consecutive days only; longer gaps are left to the evaluator
+        for (ShiftIdx a = 0; a < shifts; ++a)
+          for (ShiftIdx b = 0; b < shifts; ++b)
+            if (kMinutesPerDay + p_->shifts[static_cast<size_t>(b)].start - p_->shifts[static_cast<size_t>(a)].end < r.minutes) forbid(a, b);
+        break;
+      case RuleKind::MaxConsecutiveDays:
+        lim.maxRun = lim.maxRun == 0 ? r.count : std::min(lim.maxRun, r.count);
+        break;
+      case RuleKind::MinConsecutiveDays: lim.minRun = std::max(lim.minRun, r.count); break;
+      case RuleKind::MinConsecutiveOff: lim.minOff = std::max(lim.minOff, r.count); break;
+      case RuleKind::MaxWeekends: tighter(lim.maxWeekends, r.count, true); break;
+      case RuleKind::MaxHours:
+        if (r.windowDays == 0) tighter(lim.maxMinutes, r.minutes, true);
+        break;
+      case RuleKind::MinHours:
+        if (r.windowDays == 0) lim.minMinutes = std::max(lim.minMinutes, r.minutes);
+        break;
+      case RuleKind::MaxCount:
+        if (static_cast<int>(lim.countShift.size()) < kMaxCounts && r.count < 255) {
+          lim.countShift.push_back(r.shift);
+          lim.countLimit.push_back(r.count);
+        }
+        break;
+      default: break;  // not modelled: the evaluator judges it
+    }
+  }
+  return lim;
+}
+
+bool RowRefit::step(const Limits& lim, State& st, DayIdx d, ShiftIdx sh) const {
+  // The state is always advanced in full, so a prefix that already breaks a rule still gives
+  // the right state; `ok` says whether this day broke a modelled rule.
+  const bool inPeriod = d >= 0;
+  const bool endsInPeriod = d >= 1;  // a run ending on day d - 1 is judged only if that day is in the period
+  bool ok = true;
+  if (sh != kNoShift) {
+    if (st.last != kNoShift) {
+      const int n = static_cast<int>(p_->shifts.size()) + 1;
+      ok &= !(inPeriod && lim.forbid[static_cast<size_t>((st.last + 1) * n + sh + 1)]);
+      ++st.workRun;
+    } else {
+      // An off run ends; one cut by the first known day is exempt, as in the rule.
+      ok &= !(endsInPeriod && st.offRun > 0 && st.offRun < lim.minOff && !st.runAtEdge);
+      st.workRun = 1;
+      st.runAtEdge = false;  // the caller marks a run that starts on the first known day
+    }
+    st.offRun = 0;
+    ok &= !(inPeriod && lim.maxRun > 0 && st.workRun > lim.maxRun);
+    st.workRun = std::min(st.workRun, lim.maxRun > 0 ? lim.maxRun + 1 : std::max(lim.minRun, 1));
+  } else {
+    if (st.last != kNoShift) {
+      ok &= !(endsInPeriod && st.workRun < lim.minRun && !st.runAtEdge);
+      st.offRun = 1;
+      st.runAtEdge = false;
+    } else {
+      ++st.offRun;
+    }
+    st.workRun = 0;
+    st.offRun = std::min(st.offRun, std::max(lim.minOff, 1));
+  }
+  st.last = sh;
+  if (!inPeriod) return ok;  // totals count period days only
+
+  const int block = p_->weekendBlock[static_cast<size_t>(d)];
+  if (block < 0 || d == 0 || p_->weekendBlock[static_cast<size_t>(d - 1)] != block) st.blockWorked = false;
+  if (lim.maxWeekends >= 0 && block >= 0 && sh != kNoShift && !st.blockWorked) {
+    st.blockWorked = true;
+    ++st.weekends;
+    ok &= st.weekends <= lim.maxWeekends;
+  }
+  if (sh != kNoShift) {
+    if (lim.maxMinutes >= 0 || lim.minMinutes > 0) {
+      st.minutes += p_->shifts[static_cast<size_t>(sh)].paidMinutes();
+      ok &= lim.maxMinutes < 0 || st.minutes <= lim.maxMinutes;
+    }
+    for (size_t i = 0; i < lim.countShift.size() && i < kMaxCounts; ++i)
+      if (lim.countShift[i] == kNoShift || lim.countShift[i] == sh) {
+        st.counts[i] = static_cast<std::uint8_t>(std::min(st.counts[i] + 1, 255));
+        ok &= st.counts[i] <= lim.countLimit[i];
+      }
+  }
+  return ok;
+}
+
+bool RowRefit::joinsSuffix(const Limits& lim, const State& st, const model::Roster& roster, StaffIdx s, DayIdx end) const {
+  // Run the unchanged days after the window through the same steps. If those days break a
+  // modelled rule among themselves, no window fits; such rows are left to the other moves.
+  State after = st;
+  for (DayIdx d = end; d < p_->days; ++d)
+    if (!step(lim, after, d, taskShift_[static_cast<size_t>(roster.at(s, d))])) return false;
+  return after.minutes >= lim.minMinutes;
+}
+
+void RowRefit::packKey(Label& label) {
+  const State& st = label.state;
+  label.key[0] = (static_cast<std::uint64_t>(st.last + 1) << 48) | (static_cast<std::uint64_t>(st.workRun) << 32) |
+                 (static_cast<std::uint64_t>(st.offRun) << 16) | (static_cast<std::uint64_t>(st.runAtEdge) << 9) |
+                 (static_cast<std::uint64_t>(st.blockWorked) << 8) | static_cast<std::uint64_t>(st.weekends);
+  label.key[1] = (static_cast<std::uint64_t>(st.minutes) << 32) | (static_cast<std::uint64_t>(st.counts[0]) << 24) |
+                 (static_cast<std::uint64_t>(st.counts[1]) << 16) | (static_cast<std::uint64_t>(st.counts[2]) << 8) |
+                 static_cast<std::uint64_t>(st.counts[3]);
+}
+
+bool RowRefit::refit(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const TaskIdx* needs, double hardWeight,
+                     eval::Move& move) {
+  move.clear();
+  const model::Roster& roster = ev.roster();
+  const Limits& lim = limits_[static_cast<size_t>(s)];
+  const rules::CoverRule& cover = ev.rules().cover();
+  const DayIdx end = std::min(first + std::min(length, kMaxWindow), p_->days);
+
+  // The state before the window: history, then the unchanged days in front of it.
+  Label start{};
+  const auto& hist = p_->staff[static_cast<size_t>(s)].history;
+  const int h = static_cast<int>(hist.size());
+  // The run on the first known day is cut by the edge of what we know: the run rules exempt it.
+  const DayIdx firstKnown = -h;
+  auto advance = [&](State& st, DayIdx d, ShiftIdx sh) {
+    const bool ok = step(lim, st, d, sh);
+    if (d == firstKnown) st.runAtEdge = true;
+    return ok;
+  };
+  for (int i = 0; i < h; ++i) advance(start.state, static_cast<DayIdx>(i - h), hist[static_cast<size_t>(i)]);
+  for (DayIdx d = 0; d < first; ++d) advance(start.state, d, taskShift_[static_cast<size_t>(roster.at(s, d))]);
+  start.parent = -1;
+  start.task = kOff;
+  start.cost = 0;
+  packKey(start);
+
+  labels_.clear();
+  layerStart_.clear();
+  labels_.push_back(start);
+  layerStart_.push_back(0);
+  for (DayIdx d = first; d < end; ++d) {
+    const int from = layerStart_.back();
+    const int to = static_cast<int>(labels_.size());
+    const TaskIdx current = roster.at(s, d);
+    next_.clear();
+    for (const TaskIdx* t = e_->begin(s, d); t != e_->end(s, d); ++t) {
+      if (needs && (needs[d] == kAnyShift ? *t == kOff : needs[d] != kAnyTask && *t != needs[d])) continue;
+      // Cover change if this person takes *t, everyone else as they are.
+      double cost = ev.cellCost(s, d, *t).weighed(hardWeight);
+      if (*t != kOff) {
+        const int others = ev.coverCount(d, *t) - (current == *t);
+        cost += (cover.cellTally(d, *t, others + 1) - cover.cellTally(d, *t, others)).weighed(hardWeight);
+      }
+      const ShiftIdx sh = taskShift_[static_cast<size_t>(*t)];
+      for (int i = from; i < to; ++i) {
+        Label l = labels_[static_cast<size_t>(i)];
+        if (!advance(l.state, d, sh)) continue;
+        l.cost += cost;
+        l.parent = i;
+        l.task = *t;
+        packKey(l);
+        next_.push_back(l);
+      }
+    }
+    if (next_.empty()) return false;
+    // One label per state: the cheapest.
+    std::sort(next_.begin(), next_.end(), [](const Label& a, const Label& b) {
+      if (a.key[0] != b.key[0]) return a.key[0] < b.key[0];
+      if (a.key[1] != b.key[1]) return a.key[1] < b.key[1];
+      return a.cost < b.cost;
+    });
+    layerStart_.push_back(static_cast<int>(labels_.size()));
+    for (size_t i = 0; i < next_.size(); ++i)
+      if (i == 0 || next_[i].key[0] != next_[i - 1].key[0] || next_[i].key[1] != next_[i - 1].key[1]) labels_.push_back(next_[i]);
+  }
+
+  int best = -1;
+  for (int i = layerStart_.back(); i < static_cast<int>(labels_.size()); ++i) {
+    const Label& l = labels_[static_cast<size_t>(i)];
+    if ((best < 0 || l.cost < labels_[static_cast<size_t>(best)].cost) && joinsSuffix(lim, l.state, roster, s, end)) best = i;
+  }
+  if (best < 0 || end == first) return false;
+  // Walk back one day per label.
+  DayIdx d = end - 1;
+  for (int i = best; labels_[static_cast<size_t>(i)].parent >= 0; i = labels_[static_cast<size_t>(i)].parent, --d) {
+    const TaskIdx t = labels_[static_cast<size_t>(i)].task;
+    if (roster.at(s, d) != t) move.add(s, d, t);
+  }
+  return true;
+}
+
+}  // namespace rotaweave::search
