@@ -164,11 +164,10 @@ bool RowRefit::refit(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int le
   packKey(start);
 
   labels_.clear();
-  layerStart_.clear();
   labels_.push_back(start);
-  layerStart_.push_back(0);
+  size_t layerBegin = 0;  // the previous day's labels are labels_[layerBegin, end)
   for (DayIdx d = first; d < end; ++d) {
-    const int from = layerStart_.back();
+    const int from = static_cast<int>(layerBegin);
     const int to = static_cast<int>(labels_.size());
     const TaskIdx current = roster.at(s, d);
     next_.clear();
@@ -198,13 +197,13 @@ bool RowRefit::refit(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int le
       if (a.key[1] != b.key[1]) return a.key[1] < b.key[1];
       return a.cost < b.cost;
     });
-    layerStart_.push_back(static_cast<int>(labels_.size()));
+    layerBegin = labels_.size();
     for (size_t i = 0; i < next_.size(); ++i)
       if (i == 0 || next_[i].key[0] != next_[i - 1].key[0] || next_[i].key[1] != next_[i - 1].key[1]) labels_.push_back(next_[i]);
   }
 
   int best = -1;
-  for (int i = layerStart_.back(); i < static_cast<int>(labels_.size()); ++i) {
+  for (int i = static_cast<int>(layerBegin); i < static_cast<int>(labels_.size()); ++i) {
     const Label& l = labels_[static_cast<size_t>(i)];
     if ((best < 0 || l.cost < labels_[static_cast<size_t>(best)].cost) && joinsSuffix(lim, l.state, roster, s, end)) best = i;
   }

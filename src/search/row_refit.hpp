@@ -72,8 +72,7 @@ class RowRefit {
   std::vector<Limits> limits_;
   std::vector<ShiftIdx> taskShift_;
   std::vector<int> taskPaid_;
-  std::vector<Label> labels_, next_;
-  std::vector<int> layerStart_;
+  std::vector<Label> labels_, next_;  ///< every day's labels, for the walk back; the day being built
 };
 
 }  // namespace rotaweave::search

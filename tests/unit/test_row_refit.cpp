@@ -60,22 +60,32 @@ rules::Tally bruteForce(const search::Eligibility& e, eval::Evaluator& ev, Staff
   }
 }
 
+/// The scenario with everything a re-fit needs, and a random roster loaded.
+struct Setup {
+  explicit Setup(const std::string& history) : p(modelledScenario(history)), set(p), e(p), refit(set, e), ev(set) {}
+  void loadRandom(search::Rng& rng) {
+    model::Roster r(p.staffCount(), p.days);
+    search::randomRoster(e, r, 0.5, rng);
+    ev.load(r);
+  }
+  const model::Problem p;
+  const rules::RuleSet set;
+  const search::Eligibility e;
+  search::RowRefit refit;
+  eval::Evaluator ev;
+};
+
 }  // namespace
 
 TEST_SUITE("search") {
   TEST_CASE("row re-fit finds the cheapest feasible row, as brute force does") {
     for (const std::string history : {"[]", "[L, L]", "[E, E, E, E]", "[N, off]"}) {
       CAPTURE(history);
-      const auto p = modelledScenario(history);
-      const rules::RuleSet set(p);
-      const search::Eligibility e(p);
-      search::RowRefit refit(set, e);
-      eval::Evaluator ev(set);
+      Setup x(history);
+      auto& [p, set, e, refit, ev] = x;
       for (std::uint64_t seed = 1; seed <= 6; ++seed) {
         search::Rng rng(seed);
-        model::Roster r(p.staffCount(), p.days);
-        search::randomRoster(e, r, 0.5, rng);
-        ev.load(r);
+        x.loadRandom(rng);
         for (StaffIdx s = 0; s < p.staffCount(); ++s) {
           CAPTURE(s);
           const Cost others = othersHard(ev, s);
@@ -93,16 +103,11 @@ TEST_SUITE("search") {
   }
 
   TEST_CASE("a window re-fit keeps the days outside it and joins them without a modelled breach") {
-    const auto p = modelledScenario("[]");
-    const rules::RuleSet set(p);
-    const search::Eligibility e(p);
-    search::RowRefit refit(set, e);
-    eval::Evaluator ev(set);
+    Setup x("[]");
+    auto& [p, set, e, refit, ev] = x;
     for (std::uint64_t seed = 1; seed <= 20; ++seed) {
       search::Rng rng(seed);
-      model::Roster r(p.staffCount(), p.days);
-      search::randomRoster(e, r, 0.5, rng);
-      ev.load(r);
+      x.loadRandom(rng);
       const StaffIdx s = rng.below(p.staffCount());
       const DayIdx first = 1 + rng.below(3);
       std::vector<TaskIdx> needs(static_cast<size_t>(p.days), search::RowRefit::kAnyTask);
@@ -119,15 +124,10 @@ TEST_SUITE("search") {
   }
 
   TEST_CASE("a refit chain leaves a consistent roster and its undo restores the start") {
-    const auto p = modelledScenario("[L]");
-    const rules::RuleSet set(p);
-    const search::Eligibility e(p);
-    search::RowRefit refit(set, e);
-    eval::Evaluator ev(set);
+    Setup x("[L]");
+    auto& [p, set, e, refit, ev] = x;
     search::Rng rng(7);
-    model::Roster r(p.staffCount(), p.days);
-    search::randomRoster(e, r, 0.5, rng);
-    ev.load(r);
+    x.loadRandom(rng);
     search::RefitUndo undo;
     for (int i = 0; i < 50; ++i) {
       const model::Roster before = ev.roster();
