@@ -38,24 +38,19 @@ void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int mov
   for (int i = 0; i < moves; ++i) {
     if (i % kClockPeriod == kClockPeriod - 1 && (std::chrono::steady_clock::now() >= settings.deadline || stopRequested())) break;
     rules::Tally& slot = late[static_cast<size_t>(i) % history];
-    const rules::Tally before = ev.total();
+    const double limit = std::max(value(ev.total()), value(slot));
+    // Compound moves are applied already: judged like any other move, undone if over the limit.
     if (settings.refit && settings.refitInterval > 0 && i % settings.refitInterval == settings.refitInterval - 1) {
-      if (refitChain(e, ev, *settings.refit, rng, w, settings.refitPasses, scratch.refitUndo)) {
-        const double c = value(ev.total());
-        if (!(c <= value(before) || c <= value(slot))) undoRefitChain(ev, scratch.refitUndo);
-      }
+      if (refitChain(e, ev, *settings.refit, rng, w, settings.refitPasses, scratch.refitUndo) && value(ev.total()) > limit)
+        undoRefitChain(ev, scratch.refitUndo);
     } else if (settings.chainInterval > 0 && i % settings.chainInterval == settings.chainInterval - 1) {
-      // A compound move, applied already: judged like any other, undone if rejected.
-      if (ejectionChain(e, ev, rng, settings.chainLinks, undo)) {
-        const double c = value(ev.total());
-        if (!(c <= value(before) || c <= value(slot))) {
-          ev.tryMove(undo);
-          ev.commit();
-        }
+      if (ejectionChain(e, ev, rng, settings.chainLinks, undo) && value(ev.total()) > limit) {
+        ev.tryMove(undo);
+        ev.commit();
       }
     } else {
       randomMove(e, ev.roster(), rng, move);
-      if (move.size > 0 && ev.tryMoveWithin(move, w, std::max(value(before), value(slot)))) ev.commit();
+      if (move.size > 0 && ev.tryMoveWithin(move, w, limit)) ev.commit();
     }
     if (ev.total() < best) {
       best = ev.total();

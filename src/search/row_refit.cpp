@@ -12,10 +12,8 @@ bool applies(const model::RuleSpec& r, StaffIdx s) { return r.hard && r.inScope[
 }  // namespace
 
 RowRefit::RowRefit(const rules::RuleSet& rules, const Eligibility& e) : p_(&rules.problem()), e_(&e) {
-  for (const model::Task& t : p_->tasks) {
-    taskShift_.push_back(t.shift);
-    taskPaid_.push_back(t.shift == kNoShift ? 0 : p_->shifts[static_cast<size_t>(t.shift)].paidMinutes());
-  }
+  for (const model::Task& t : p_->tasks) taskShift_.push_back(t.shift);
+  for (const model::ShiftType& shift : p_->shifts) shiftPaid_.push_back(shift.paidMinutes());
   for (StaffIdx s = 0; s < p_->staffCount(); ++s) limits_.push_back(limitsFor(rules, s));
 }
 
@@ -106,7 +104,7 @@ bool RowRefit::step(const Limits& lim, State& st, DayIdx d, ShiftIdx sh) const {
   }
   if (sh != kNoShift) {
     if (lim.maxMinutes >= 0 || lim.minMinutes > 0) {
-      st.minutes += p_->shifts[static_cast<size_t>(sh)].paidMinutes();
+      st.minutes += shiftPaid_[static_cast<size_t>(sh)];
       ok &= lim.maxMinutes < 0 || st.minutes <= lim.maxMinutes;
     }
     for (size_t i = 0; i < lim.countShift.size() && i < kMaxCounts; ++i)
@@ -144,6 +142,7 @@ bool RowRefit::refit(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int le
   const Limits& lim = limits_[static_cast<size_t>(s)];
   const rules::CoverRule& cover = ev.rules().cover();
   const DayIdx end = std::min(first + std::min(length, kMaxWindow), p_->days);
+  if (end <= first) return false;
 
   // The state before the window: history, then the unchanged days in front of it.
   Label start{};
@@ -207,7 +206,7 @@ bool RowRefit::refit(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int le
     const Label& l = labels_[static_cast<size_t>(i)];
     if ((best < 0 || l.cost < labels_[static_cast<size_t>(best)].cost) && joinsSuffix(lim, l.state, roster, s, end)) best = i;
   }
-  if (best < 0 || end == first) return false;
+  if (best < 0) return false;
   // Walk back one day per label.
   DayIdx d = end - 1;
   for (int i = best; labels_[static_cast<size_t>(i)].parent >= 0; i = labels_[static_cast<size_t>(i)].parent, --d) {

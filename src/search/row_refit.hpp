@@ -71,7 +71,7 @@ class RowRefit {
   const Eligibility* e_;
   std::vector<Limits> limits_;
   std::vector<ShiftIdx> taskShift_;
-  std::vector<int> taskPaid_;
+  std::vector<int> shiftPaid_;  ///< paid minutes per shift type
   std::vector<Label> labels_, next_;  ///< every day's labels, for the walk back; the day being built
 };
 
