@@ -137,6 +137,17 @@ void RowRefit::packKey(Label& label) {
 
 bool RowRefit::refit(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const TaskIdx* needs, double hardWeight,
                      eval::Move& move) {
+  double cost = 0;
+  return cheapestRow(ev, s, first, length, needs, nullptr, hardWeight, move, cost);
+}
+
+bool RowRefit::refitAtPrices(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const double* prices,
+                             double hardWeight, eval::Move& move, double& cost) {
+  return cheapestRow(ev, s, first, length, nullptr, prices, hardWeight, move, cost);
+}
+
+bool RowRefit::cheapestRow(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const TaskIdx* needs,
+                           const double* prices, double hardWeight, eval::Move& move, double& cost) {
   move.clear();
   const model::Roster& roster = ev.roster();
   const Limits& lim = limits_[static_cast<size_t>(s)];
@@ -173,16 +184,18 @@ bool RowRefit::refit(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int le
     for (const TaskIdx* t = e_->begin(s, d); t != e_->end(s, d); ++t) {
       if (needs && (needs[d] == kAnyShift ? *t == kOff : needs[d] != kAnyTask && *t != needs[d])) continue;
       // Cover change if this person takes *t, everyone else as they are.
-      double cost = ev.cellCost(s, d, *t).weighed(hardWeight);
-      if (*t != kOff) {
+      double cellCost = ev.cellCost(s, d, *t).weighed(hardWeight);
+      if (*t != kOff && prices) {
+        cellCost += prices[static_cast<size_t>(d) * static_cast<size_t>(p_->taskCount()) + static_cast<size_t>(*t)];
+      } else if (*t != kOff) {
         const int others = ev.coverCount(d, *t) - (current == *t);
-        cost += (cover.cellTally(d, *t, others + 1) - cover.cellTally(d, *t, others)).weighed(hardWeight);
+        cellCost += (cover.cellTally(d, *t, others + 1) - cover.cellTally(d, *t, others)).weighed(hardWeight);
       }
       const ShiftIdx sh = taskShift_[static_cast<size_t>(*t)];
       for (int i = from; i < to; ++i) {
         Label l = labels_[static_cast<size_t>(i)];
         if (!advance(l.state, d, sh)) continue;
-        l.cost += cost;
+        l.cost += cellCost;
         l.parent = i;
         l.task = *t;
         packKey(l);
@@ -207,6 +220,7 @@ bool RowRefit::refit(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int le
     if ((best < 0 || l.cost < labels_[static_cast<size_t>(best)].cost) && joinsSuffix(lim, l.state, roster, s, end)) best = i;
   }
   if (best < 0) return false;
+  cost = labels_[static_cast<size_t>(best)].cost;
   // Walk back one day per label.
   DayIdx d = end - 1;
   for (int i = best; labels_[static_cast<size_t>(i)].parent >= 0; i = labels_[static_cast<size_t>(i)].parent, --d) {

@@ -34,6 +34,11 @@ class RowRefit {
   /// Returns false if no row satisfies them and the modelled rules.
   bool refit(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const TaskIdx* needs, double hardWeight,
              eval::Move& move);
+  /// Like refit, but a worked cell costs its price, `prices[day * tasks + task]`, instead of the
+  /// change in cover it makes: the others' cells do not matter. Sets `cost` to the cheapest
+  /// row's cost (cell-local rules plus prices).
+  bool refitAtPrices(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const double* prices,
+                     double hardWeight, eval::Move& move, double& cost);
 
  private:
   /// The hard row rules of one person that the search models; unset bounds are "none".
@@ -66,6 +71,10 @@ class RowRefit {
   /// Whether the window's last state joins the unchanged days after it without a modelled breach.
   bool joinsSuffix(const Limits& lim, const State& st, const model::Roster& roster, StaffIdx s, DayIdx end) const;
   static void packKey(Label& label);
+  /// The shortest path behind refit and refitAtPrices: cover priced by `prices`, or by the
+  /// roster in `ev` when it is null.
+  bool cheapestRow(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const TaskIdx* needs,
+                   const double* prices, double hardWeight, eval::Move& move, double& cost);
 
   const model::Problem* p_;
   const Eligibility* e_;

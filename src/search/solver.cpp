@@ -13,12 +13,18 @@
 
 #include "search/eligibility.hpp"
 #include "search/island.hpp"
+#include "search/lagrangian.hpp"
 #include "search/stop_signal.hpp"
 
 namespace rotaweave::search {
 namespace {
 
 using Clock = std::chrono::steady_clock;
+
+/// A hard point outweighs this many soft ones while the starting rosters are built.
+constexpr double kStartHardWeight = 1000.0;
+/// The most of the time limit the relaxation may take.
+constexpr double kLagrangianTimeShare = 0.25;
 
 int resolveThreads(int requested, int islands) {
   int cores = 1;
@@ -60,10 +66,24 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
     return outOfTime.load();
   };
 
-  // 1 - Initial populations, one island per thread, within the time limit.
-  const auto deadline = started + std::chrono::duration_cast<Clock::duration>(std::chrono::duration<double>(options.timeLimit));
+  auto after = [&](double seconds) { return started + std::chrono::duration_cast<Clock::duration>(std::chrono::duration<double>(seconds)); };
+  const auto deadline = after(options.timeLimit);
+  // 1 - Starting rosters from the relaxation of cover, within a share of the time limit; every
+  // island's population starts with them, after the caller's seeds.
+  std::vector<model::Roster> starts = seeds;
+  if (options.lagrangianRounds > 0 && options.lagrangianStarts > 0 && !eligibility.freeCells().empty()) {
+    eval::Evaluator ev(rules);
+    RowRefit refit(rules, eligibility);
+    Rng rng(splitmix64(seedState));
+    const LagrangianResult relaxed = lagrangianStarts(eligibility, ev, refit, rng, options.lagrangianRounds, options.lagrangianStarts,
+                                                      kStartHardWeight, after(options.timeLimit * kLagrangianTimeShare));
+    starts.insert(starts.end(), relaxed.rosters.begin(), relaxed.rosters.end());
+    result.lagrangianRounds = relaxed.rounds;
+  }
+
+  // 2 - Initial populations, one island per thread, within the time limit.
 #pragma omp parallel for num_threads(result.threads) schedule(dynamic, 1)
-  for (int i = 0; i < result.islands; ++i) islands[static_cast<size_t>(i)]->initialize(seeds, deadline);
+  for (int i = 0; i < result.islands; ++i) islands[static_cast<size_t>(i)]->initialize(starts, deadline);
 
   auto bestIsland = [&] {
     int best = 0;
@@ -77,7 +97,7 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
   const Cost targetSoft = std::llround(options.targetSoft * static_cast<double>(kCostScale));
 
   while (true) {
-    // 2 - Stopping rules, checked between epochs.
+    // 3 - Stopping rules, checked between epochs.
     if (stopRequested()) { result.stopReason = "interrupted"; break; }
     if (outOfTime || elapsed() >= options.timeLimit) { result.stopReason = "time limit"; break; }
     if (options.generations > 0 && generation >= options.generations) { result.stopReason = "generation limit"; break; }
@@ -90,7 +110,7 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
       break;
     }
 
-    // 3 - One epoch: every island evolves on its own.
+    // 4 - One epoch: every island evolves on its own.
     int epoch = options.migrationInterval;
     if (options.generations > 0) epoch = static_cast<int>(std::min<long>(epoch, options.generations - generation));
     std::vector<int> done(static_cast<size_t>(result.islands), 0);
@@ -98,7 +118,7 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
     for (int i = 0; i < result.islands; ++i) done[static_cast<size_t>(i)] = islands[static_cast<size_t>(i)]->evolve(epoch, stopNow);
     generation += *std::max_element(done.begin(), done.end());
 
-    // 4 - Migration on the ring, in island order so the outcome never depends on threads.
+    // 5 - Migration on the ring, in island order so the outcome never depends on threads.
     if (result.islands > 1 && options.migrants > 0) {
       std::vector<std::vector<Individual>> outgoing;
       for (const auto& island : islands) outgoing.push_back(island->emigrants(options.migrants));

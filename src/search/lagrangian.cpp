@@ -1,0 +1,125 @@
+/// @brief Subgradient rounds over cover prices, with re-fit repair of each round's roster.
+#include "search/lagrangian.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdlib>
+
+namespace rotaweave::search {
+
+namespace {
+
+/// Rounds without a better relaxation before the step shrinks (a common subgradient schedule).
+constexpr int kPatience = 20;
+constexpr int kRepairPasses = 3;
+
+/// Rewrites every row as `choose(s, first, length, move)` proposes, window by window.
+template <class Choose>
+void rewriteRows(eval::Evaluator& ev, Choose&& choose, const std::vector<StaffIdx>& order) {
+  const int days = ev.rules().problem().days;
+  eval::Move move;
+  for (const StaffIdx s : order)
+    for (DayIdx first = 0; first < days; first += RowRefit::kMaxWindow)
+      if (choose(s, first, std::min(RowRefit::kMaxWindow, days - first), move)) {
+        ev.tryMove(move);
+        ev.commit();
+      }
+}
+
+/// Keeps the best `keep` distinct rosters seen, best first.
+void remember(std::vector<std::pair<double, model::Roster>>& pool, int keep, double value, const model::Roster& roster) {
+  for (const auto& [v, r] : pool)
+    if (v == value && r.cells == roster.cells) return;
+  if (static_cast<int>(pool.size()) == keep && value >= pool.back().first) return;
+  if (static_cast<int>(pool.size()) == keep) pool.pop_back();
+  const auto at = std::find_if(pool.begin(), pool.end(), [&](const auto& entry) { return value < entry.first; });
+  pool.insert(at, {value, roster});
+}
+
+}  // namespace
+
+LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, RowRefit& refit, Rng& rng, int rounds,
+                                  int keep, double hardWeight, std::chrono::steady_clock::time_point deadline) {
+  LagrangianResult result;
+  const model::Problem& p = ev.rules().problem();
+  const rules::CoverRule& cover = ev.rules().cover();
+  const int people = p.staffCount(), tasks = p.taskCount();
+  const size_t cells = static_cast<size_t>(p.days) * static_cast<size_t>(tasks);
+  // price[cell] = -reward: what a person's row pays for taking that (day, task).
+  std::vector<double> reward(cells, 0.0), price(cells, 0.0), gradient(cells, 0.0);
+  std::vector<StaffIdx> order(static_cast<size_t>(people));
+  for (StaffIdx s = 0; s < people; ++s) order[static_cast<size_t>(s)] = s;
+  std::vector<std::pair<double, model::Roster>> pool;
+
+  model::Roster start(people, p.days);  // each cell's first option: off unless the cell is fixed
+  for (StaffIdx s = 0; s < people; ++s)
+    for (DayIdx d = 0; d < p.days; ++d) start.at(s, d) = *e.begin(s, d);
+  ev.load(start);
+  double bestPrimal = INFINITY, bestDual = -INFINITY, scale = 1.0;
+  int sinceBetter = 0;
+  for (int round = 0; round < rounds && std::chrono::steady_clock::now() < deadline; ++round) {
+    result.rounds = round + 1;
+    // 1 - Every row at the current prices; with cover priced, rows do not depend on each other.
+    for (size_t c = 0; c < cells; ++c) price[c] = -reward[c];
+    double rowsCost = 0;
+    rewriteRows(ev, [&](StaffIdx s, DayIdx first, int length, eval::Move& move) {
+      double cost = 0;
+      const bool found = refit.refitAtPrices(ev, s, first, length, price.data(), hardWeight, move, cost);
+      rowsCost += found ? cost : 0;
+      return found;
+    }, order);
+
+    // 2 - The cover side: for each cell the count y minimising cover cost + reward * y. Among
+    // equal choices take the one nearest the rows' count, so a settled cell stops moving.
+    double coverSide = 0, norm = 0;
+    for (DayIdx d = 0; d < p.days; ++d)
+      for (TaskIdx t = 1; t < tasks; ++t) {
+        const size_t c = static_cast<size_t>(d) * static_cast<size_t>(tasks) + static_cast<size_t>(t);
+        if (!p.demandAt(d, t).defined) continue;
+        const int x = ev.coverCount(d, t);
+        double best = INFINITY;
+        int bestY = x;
+        for (int y = 0; y <= people; ++y) {
+          const double v = cover.cellTally(d, t, y).weighed(hardWeight) + reward[c] * y;
+          if (v < best - 1e-9 || (v <= best + 1e-9 && std::abs(y - x) < std::abs(bestY - x))) {
+            best = v;
+            bestY = y;
+          }
+        }
+        coverSide += best;
+        gradient[c] = bestY - x;
+        norm += gradient[c] * gradient[c];
+      }
+    const double dual = rowsCost + coverSide;
+
+    // 3 - Repair: re-fit rows against the real cover, in a random order each pass.
+    for (int pass = 0; pass < kRepairPasses; ++pass) {
+      for (size_t i = order.size(); i > 1; --i) std::swap(order[i - 1], order[static_cast<size_t>(rng.below(static_cast<int>(i)))]);
+      rewriteRows(ev, [&](StaffIdx s, DayIdx first, int length, eval::Move& move) {
+        return refit.refit(ev, s, first, length, nullptr, hardWeight, move);
+      }, order);
+    }
+    const double primal = ev.total().weighed(hardWeight);
+    bestPrimal = std::min(bestPrimal, primal);
+    remember(pool, keep, primal, ev.roster());
+
+    // 4 - A subgradient step towards the target (the best roster so far), shrinking when the
+    // relaxation stops improving.
+    if (dual > bestDual + 1e-9) {
+      bestDual = dual;
+      sinceBetter = 0;
+    } else if (++sinceBetter >= kPatience) {
+      scale /= 2;
+      sinceBetter = 0;
+    }
+    if (norm == 0) break;  // every cell settled: the prices cannot move
+    const double step = scale * std::max(bestPrimal - dual, 0.0) / norm;
+    if (step == 0) break;
+    for (size_t c = 0; c < cells; ++c) reward[c] += step * gradient[c];
+  }
+  result.dual = bestDual;
+  for (auto& entry : pool) result.rosters.push_back(std::move(entry.second));
+  return result;
+}
+
+}  // namespace rotaweave::search

@@ -1,0 +1,32 @@
+/// @brief Starting rosters from a Lagrangian relaxation of cover.
+///
+/// Cover is what ties people's rows together. Pricing it instead (a reward per person on each
+/// (day, task) cell, tuned by subgradient steps) lets every row be chosen on its own by the
+/// exact row re-fit. The priced rows show which days and weekends each person should work in
+/// a good roster, even where the local search would need many rows to change together to find
+/// that out. Each round's priced roster is repaired by re-fitting rows against the real cover,
+/// and the best repaired rosters seed the islands.
+#pragma once
+#include <chrono>
+#include <vector>
+
+#include "eval/evaluator.hpp"
+#include "search/eligibility.hpp"
+#include "search/rng.hpp"
+#include "search/row_refit.hpp"
+
+namespace rotaweave::search {
+
+struct LagrangianResult {
+  std::vector<model::Roster> rosters;  ///< the best distinct repaired rosters, best first
+  double dual = 0;                     ///< best value of the relaxation, in weighed cost units
+  int rounds = 0;                      ///< subgradient rounds run
+};
+
+/// Runs up to `rounds` subgradient rounds (fewer past `deadline`) and keeps the `keep` best
+/// distinct repaired rosters. `hardWeight` weighs hard cost against soft, as in local search.
+/// Uses `ev` and `refit` as scratch; deterministic for a given `rng` state.
+LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, RowRefit& refit, Rng& rng, int rounds,
+                                  int keep, double hardWeight, std::chrono::steady_clock::time_point deadline);
+
+}  // namespace rotaweave::search
