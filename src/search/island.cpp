@@ -34,20 +34,25 @@ void Island::sortPopulation() {
                    [](const Individual& a, const Individual& b) { return a.score < b.score; });
 }
 
-void Island::initialize(const std::vector<model::Roster>& seeds, std::chrono::steady_clock::time_point deadline) {
+void Island::initialize(const std::vector<model::Roster>& seeds, const std::vector<model::Roster>& starts, std::chrono::steady_clock::time_point deadline) {
   deadline_ = deadline;
   const model::Problem& p = ev_.rules().problem();
   const int n = std::max(options_.population, 2);
   population_.assign(static_cast<size_t>(n), Individual{model::Roster(p.staffCount(), p.days), {}});
   for (int i = 0; i < n; ++i) {
     Individual& ind = population_[static_cast<size_t>(i)];
+    const bool late = std::chrono::steady_clock::now() >= deadline || stopRequested();
     if (i < static_cast<int>(seeds.size())) {
       ind.genome = seeds[static_cast<size_t>(i)];
       ev_.load(ind.genome);
       ind.score = ev_.total();
       continue;
     }
-    const bool late = std::chrono::steady_clock::now() >= deadline || stopRequested();
+    if (i < static_cast<int>(seeds.size() + starts.size())) {
+      ind.genome = starts[static_cast<size_t>(i) - seeds.size()];
+      improve(ind, late ? 0 : options_.localSearchMoves);
+      continue;
+    }
     if (late && i > 0) {
       // Out of time: a mutated copy of the first individual, scored but not improved.
       ind.genome = population_.front().genome;

@@ -20,10 +20,11 @@ class Island {
  public:
   Island(const rules::RuleSet& rules, const Eligibility& eligibility, const SolverOptions& options, std::uint64_t seed);
 
-  /// Builds the first population; `seeds` (e.g. a published roster) join it as they are.
+  /// Builds the first population; `seeds` (e.g. a published roster) join it as they are,
+  /// `starts` after local search.
   /// Past `deadline`, the rest of the population are quick variants of the first individual;
   /// local search in later generations also returns at `deadline`.
-  void initialize(const std::vector<model::Roster>& seeds, std::chrono::steady_clock::time_point deadline);
+  void initialize(const std::vector<model::Roster>& seeds, const std::vector<model::Roster>& starts, std::chrono::steady_clock::time_point deadline);
   /// Runs up to `generations` generations; stops early when `stop()` returns true.
   template <class Stop>
   int evolve(int generations, Stop&& stop) {

@@ -13,21 +13,27 @@ namespace {
 constexpr int kPatience = 20;
 constexpr int kRepairPasses = 3;
 
-/// Rewrites every row as `choose(s, first, length, move)` proposes, window by window.
+/// Rewrites every row as `choose(s, first, length, move)` proposes, window by window; false,
+/// with the rows only partly rewritten, if `deadline` passes on the way.
 template <class Choose>
-void rewriteRows(eval::Evaluator& ev, Choose&& choose, const std::vector<StaffIdx>& order) {
+bool rewriteRows(eval::Evaluator& ev, Choose&& choose, const std::vector<StaffIdx>& order,
+                 std::chrono::steady_clock::time_point deadline) {
   const int days = ev.rules().problem().days;
   eval::Move move;
-  for (const StaffIdx s : order)
+  for (const StaffIdx s : order) {
+    if (std::chrono::steady_clock::now() >= deadline) return false;
     for (DayIdx first = 0; first < days; first += RowRefit::kMaxWindow)
       if (choose(s, first, std::min(RowRefit::kMaxWindow, days - first), move)) {
         ev.tryMove(move);
         ev.commit();
       }
+  }
+  return true;
 }
 
 /// Keeps the best `keep` distinct rosters seen, best first.
 void remember(std::vector<std::pair<double, model::Roster>>& pool, int keep, double value, const model::Roster& roster) {
+  if (keep <= 0) return;
   for (const auto& [v, r] : pool)
     if (v == value && r.cells == roster.cells) return;
   if (static_cast<int>(pool.size()) == keep && value >= pool.back().first) return;
@@ -57,17 +63,17 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
   ev.load(start);
   double bestPrimal = INFINITY, bestDual = -INFINITY, scale = 1.0;
   int sinceBetter = 0;
-  for (int round = 0; round < rounds && std::chrono::steady_clock::now() < deadline; ++round) {
-    result.rounds = round + 1;
+  for (int round = 0; round < rounds; ++round) {
     // 1 - Every row at the current prices; with cover priced, rows do not depend on each other.
     for (size_t c = 0; c < cells; ++c) price[c] = -reward[c];
     double rowsCost = 0;
-    rewriteRows(ev, [&](StaffIdx s, DayIdx first, int length, eval::Move& move) {
+    const bool priced = rewriteRows(ev, [&](StaffIdx s, DayIdx first, int length, eval::Move& move) {
       double cost = 0;
       const bool found = refit.refitAtPrices(ev, s, first, length, price.data(), hardWeight, move, cost);
       rowsCost += found ? cost : 0;
       return found;
-    }, order);
+    }, order, deadline);
+    if (!priced) break;  // out of time: this round's rows are unfinished
 
     // 2 - The cover side: for each cell the count y minimising cover cost + reward * y. Among
     // equal choices take the one nearest the rows' count, so a settled cell stops moving.
@@ -92,13 +98,15 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
       }
     const double dual = rowsCost + coverSide;
 
-    // 3 - Repair: re-fit rows against the real cover, in a random order each pass.
+    // 3 - Repair: re-fit rows against the real cover, in a random order each pass. A repair cut
+    // short by the deadline still gives a whole roster.
     for (int pass = 0; pass < kRepairPasses; ++pass) {
       for (size_t i = order.size(); i > 1; --i) std::swap(order[i - 1], order[static_cast<size_t>(rng.below(static_cast<int>(i)))]);
       rewriteRows(ev, [&](StaffIdx s, DayIdx first, int length, eval::Move& move) {
         return refit.refit(ev, s, first, length, nullptr, hardWeight, move);
-      }, order);
+      }, order, deadline);
     }
+    result.rounds = round + 1;
     const double primal = ev.total().weighed(hardWeight);
     bestPrimal = std::min(bestPrimal, primal);
     remember(pool, keep, primal, ev.roster());
@@ -117,7 +125,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
     if (step == 0) break;
     for (size_t c = 0; c < cells; ++c) reward[c] += step * gradient[c];
   }
-  result.dual = bestDual;
+  result.dual = result.rounds > 0 ? bestDual : 0;
   for (auto& entry : pool) result.rosters.push_back(std::move(entry.second));
   return result;
 }

@@ -19,7 +19,10 @@ namespace rotaweave::search {
 
 struct LagrangianResult {
   std::vector<model::Roster> rosters;  ///< the best distinct repaired rosters, best first
-  double dual = 0;                     ///< best value of the relaxation, in weighed cost units
+  /// Best value of the relaxation, in weighed cost units (0 if no round ran). A lower bound on
+  /// every roster only when each rule is cover, cell-local or a hard rule the re-fit models,
+  /// every row has a feasible choice and the period fits in one re-fit window.
+  double dual = 0;
   int rounds = 0;                      ///< subgradient rounds run
 };
 

@@ -69,21 +69,21 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
   auto after = [&](double seconds) { return started + std::chrono::duration_cast<Clock::duration>(std::chrono::duration<double>(seconds)); };
   const auto deadline = after(options.timeLimit);
   // 1 - Starting rosters from the relaxation of cover, within a share of the time limit; every
-  // island's population starts with them, after the caller's seeds.
-  std::vector<model::Roster> starts = seeds;
+  // island's population starts with the caller's seeds, then these.
+  std::vector<model::Roster> starts;
   if (options.lagrangianRounds > 0 && options.lagrangianStarts > 0 && !eligibility.freeCells().empty()) {
     eval::Evaluator ev(rules);
     RowRefit refit(rules, eligibility);
     Rng rng(splitmix64(seedState));
     const LagrangianResult relaxed = lagrangianStarts(eligibility, ev, refit, rng, options.lagrangianRounds, options.lagrangianStarts,
                                                       kStartHardWeight, after(options.timeLimit * kLagrangianTimeShare));
-    starts.insert(starts.end(), relaxed.rosters.begin(), relaxed.rosters.end());
+    starts = relaxed.rosters;
     result.lagrangianRounds = relaxed.rounds;
   }
 
   // 2 - Initial populations, one island per thread, within the time limit.
 #pragma omp parallel for num_threads(result.threads) schedule(dynamic, 1)
-  for (int i = 0; i < result.islands; ++i) islands[static_cast<size_t>(i)]->initialize(starts, deadline);
+  for (int i = 0; i < result.islands; ++i) islands[static_cast<size_t>(i)]->initialize(seeds, starts, deadline);
 
   auto bestIsland = [&] {
     int best = 0;

@@ -27,7 +27,7 @@ struct SolverOptions {
   int chainInterval = 300;           ///< local-search moves between ejection chains; 0: none
   int refitInterval = 0;             ///< local-search moves between refit chains; 0: none
   int refitPasses = 1;               ///< rounds of answering re-fits by everyone else in a refit chain
-  int lagrangianRounds = 300;        ///< subgradient rounds for starting rosters from priced cover; 0: none
+  int lagrangianRounds = 1000;       ///< subgradient rounds for starting rosters from priced cover; 0: none
   int lagrangianStarts = 4;          ///< of its rosters, how many join every island's first population
   double hardWeightFloor = 100;      ///< least soft points a hard point counts for while searching
   int migrationInterval = 8;         ///< generations between migrations

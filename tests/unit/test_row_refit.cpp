@@ -1,6 +1,9 @@
 /// @brief Row re-fit against brute force: on rules it models, its row is the cheapest feasible one.
 #include <doctest/doctest.h>
 
+#include <algorithm>
+#include <cmath>
+
 #include "fixtures.hpp"
 #include "search/construction.hpp"
 #include "search/eligibility.hpp"
@@ -10,31 +13,6 @@
 using namespace rotaweave;
 
 namespace {
-
-/// Three people over 8 days (Monday to the next Monday) with every rule kind the re-fit models,
-/// all hard; cover and requests soft, so a row's cost is soft and its feasibility is hard == 0.
-model::Problem modelledScenario(const std::string& history) {
-  return test::loadYaml(test::header(8) +
-                        "staff:\n"
-                        "  - {id: a, skills: [rn], history: " + history + ", requests: [{date: 2027-03-03, off: true, weight: 3},"
-                        " {date: 2027-03-06, shift: L, weight: 2}]}\n"
-                        "  - {id: b, skills: [rn], absences: [{date: 2027-03-02}]}\n"
-                        "  - {id: c, skills: [rn]}\n"
-                        "demand:\n"
-                        "  - {shift: E, skill: rn, min: 1, target: 2, max: 2, severity: soft, min_weight: 4}\n"
-                        "  - {shift: L, skill: rn, min: 1, severity: soft, min_weight: 5}\n"
-                        "  - {shift: N, skill: rn, min: 0, max: 0, severity: soft}\n"
-                        "rules:\n  list:\n"
-                        "    - {kind: forbid-sequence, sequence: [L, E], severity: hard}\n"
-                        "    - {kind: min-rest, hours: 11, severity: hard}\n"
-                        "    - {kind: max-consecutive-days, days: 4, severity: hard}\n"
-                        "    - {kind: min-consecutive-days, days: 2, severity: hard}\n"
-                        "    - {kind: min-consecutive-off, days: 2, severity: hard}\n"
-                        "    - {kind: max-count, shift: L, count: 3, severity: hard}\n"
-                        "    - {kind: max-hours, hours: 40, severity: hard}\n"
-                        "    - {kind: min-hours, hours: 16, severity: hard}\n"
-                        "    - {kind: max-weekends, count: 0, severity: hard, staff: [c]}\n");
-}
 
 /// Hard penalty of everyone but s (all hard rules here are row rules).
 Cost othersHard(eval::Evaluator& ev, StaffIdx s) {
@@ -60,9 +38,26 @@ rules::Tally bruteForce(const search::Eligibility& e, eval::Evaluator& ev, Staff
   }
 }
 
+/// Every row of s with no hard breach of its own (hard stays at `others`), by trying every row
+/// the eligibility allows.
+std::vector<std::vector<TaskIdx>> feasibleRows(const search::Eligibility& e, eval::Evaluator& ev, StaffIdx s, int days,
+                                               Cost others) {
+  std::vector<std::vector<TaskIdx>> rows;
+  std::vector<int> pick(static_cast<size_t>(days), 0);
+  std::vector<TaskIdx> row(static_cast<size_t>(days));
+  for (;;) {
+    eval::Move move;
+    for (DayIdx d = 0; d < days; ++d) move.add(s, d, row[static_cast<size_t>(d)] = e.begin(s, d)[pick[static_cast<size_t>(d)]]);
+    if (ev.tryMove(move).hard == others) rows.push_back(row);
+    DayIdx d = 0;
+    while (d < days && ++pick[static_cast<size_t>(d)] == e.count(s, d)) pick[static_cast<size_t>(d++)] = 0;
+    if (d == days) return rows;
+  }
+}
+
 /// The scenario with everything a re-fit needs, and a random roster loaded.
 struct Setup {
-  explicit Setup(const std::string& history) : p(modelledScenario(history)), set(p), e(p), refit(set, e), ev(set) {}
+  explicit Setup(const std::string& history) : p(test::rowRulesScenario(history)), set(p), e(p), refit(set, e), ev(set) {}
   void loadRandom(search::Rng& rng) {
     model::Roster r(p.staffCount(), p.days);
     search::randomRoster(e, r, 0.5, rng);
@@ -97,6 +92,50 @@ TEST_SUITE("search") {
           const rules::Tally got = move.size ? ev.tryMove(move) : ev.total();
           CHECK(got.hard == others);
           CHECK(got.soft == best.soft);
+        }
+      }
+    }
+  }
+
+  TEST_CASE("row re-fit at prices finds the cheapest feasible row, as brute force does") {
+    constexpr double kWeight = 100.0;
+    for (const std::string history : {"[]", "[L, L]", "[E, E, E, E]", "[N, off]"}) {
+      CAPTURE(history);
+      Setup x(history);
+      auto& [p, set, e, refit, ev] = x;
+      const size_t tasks = static_cast<size_t>(p.taskCount());
+      // A row's cost at prices, worked out here: cell-local rules on every day, the price of each worked cell.
+      auto pricedCost = [&](StaffIdx s, const std::vector<TaskIdx>& row, const std::vector<double>& prices) {
+        double cost = 0;
+        for (DayIdx d = 0; d < p.days; ++d) {
+          const TaskIdx t = row[static_cast<size_t>(d)];
+          cost += ev.cellCost(s, d, t).weighed(kWeight) + (t == kOff ? 0.0 : prices[static_cast<size_t>(d) * tasks + static_cast<size_t>(t)]);
+        }
+        return cost;
+      };
+      for (std::uint64_t seed = 1; seed <= 3; ++seed) {
+        search::Rng rng(seed);
+        x.loadRandom(rng);
+        for (StaffIdx s = 0; s < p.staffCount(); ++s) {
+          CAPTURE(s);
+          const auto rows = feasibleRows(e, ev, s, p.days, othersHard(ev, s));  // prices do not change feasibility
+          for (int table = 0; table < 4; ++table) {
+            // From a reward of 6 points to a charge of 6 per cell: the order of the cover weights.
+            std::vector<double> prices(static_cast<size_t>(p.days) * tasks);
+            for (double& price : prices) price = (12 * rng.uniform() - 6) * kCostScale;
+            double best = INFINITY;
+            for (const auto& row : rows) best = std::min(best, pricedCost(s, row, prices));
+            eval::Move move;
+            double cost = NAN;
+            const bool found = refit.refitAtPrices(ev, s, 0, p.days, prices.data(), kWeight, move, cost);
+            REQUIRE(found == !rows.empty());
+            if (!found) continue;
+            CHECK(cost == doctest::Approx(best).epsilon(1e-9).scale(kCostScale));
+            std::vector<TaskIdx> row(ev.roster().row(s), ev.roster().row(s) + p.days);
+            for (const auto& c : move) row[static_cast<size_t>(c.day)] = c.task;
+            CHECK(std::find(rows.begin(), rows.end(), row) != rows.end());
+            CHECK(pricedCost(s, row, prices) == doctest::Approx(cost).epsilon(1e-9).scale(kCostScale));
+          }
         }
       }
     }
