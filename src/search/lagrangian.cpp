@@ -5,6 +5,8 @@
 #include <cmath>
 #include <cstdlib>
 
+#include "search/stop_signal.hpp"
+
 namespace rotaweave::search {
 
 namespace {
@@ -14,14 +16,14 @@ constexpr int kPatience = 20;
 constexpr int kRepairPasses = 3;
 
 /// Rewrites every row as `choose(s, first, length, move)` proposes, window by window; false,
-/// with the rows only partly rewritten, if `deadline` passes on the way.
+/// with the rows only partly rewritten, if `deadline` passes or a stop is requested on the way.
 template <class Choose>
 bool rewriteRows(eval::Evaluator& ev, Choose&& choose, const std::vector<StaffIdx>& order,
                  std::chrono::steady_clock::time_point deadline) {
   const int days = ev.rules().problem().days;
   eval::Move move;
   for (const StaffIdx s : order) {
-    if (std::chrono::steady_clock::now() >= deadline) return false;
+    if (std::chrono::steady_clock::now() >= deadline || stopRequested()) return false;
     for (DayIdx first = 0; first < days; first += RowRefit::kMaxWindow)
       if (choose(s, first, std::min(RowRefit::kMaxWindow, days - first), move)) {
         ev.tryMove(move);
