@@ -103,7 +103,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
     // 3 - Repair: re-fit rows against the real cover, in a random order each pass. A repair cut
     // short by the deadline still gives a whole roster.
     for (int pass = 0; pass < kRepairPasses; ++pass) {
-      for (size_t i = order.size(); i > 1; --i) std::swap(order[i - 1], order[static_cast<size_t>(rng.below(static_cast<int>(i)))]);
+      rng.shuffle(order);
       rewriteRows(ev, [&](StaffIdx s, DayIdx first, int length, eval::Move& move) {
         return refit.refit(ev, s, first, length, nullptr, hardWeight, move);
       }, order, deadline);

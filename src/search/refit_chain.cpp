@@ -44,7 +44,7 @@ bool refitChain(const Eligibility& e, eval::Evaluator& ev, RowRefit& refit, Rng&
   for (StaffIdx other = 0; other < p.staffCount(); ++other)
     if (other != s) order.push_back(other);
   for (int pass = 0; pass < passes; ++pass) {
-    for (size_t i = order.size(); i > 1; --i) std::swap(order[i - 1], order[static_cast<size_t>(rng.below(static_cast<int>(i)))]);
+    rng.shuffle(order);
     for (const StaffIdx other : order)
       if (refit.refit(ev, other, first, length, nullptr, hardWeight, move)) applyRow(ev, move, undo);
   }

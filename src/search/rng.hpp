@@ -1,6 +1,8 @@
 /// @brief A small, fast, seedable random engine (xoshiro256**), one per island; no global state.
 #pragma once
 #include <cstdint>
+#include <utility>
+#include <vector>
 
 namespace rotaweave::search {
 
@@ -33,6 +35,11 @@ class Rng {
   /// Uniform in [0, 1).
   double uniform() { return static_cast<double>(next() >> 11) * 0x1.0p-53; }
   bool chance(double p) { return uniform() < p; }
+  /// Puts `v` in a uniformly random order (Fisher-Yates).
+  template <class T>
+  void shuffle(std::vector<T>& v) {
+    for (size_t i = v.size(); i > 1; --i) std::swap(v[i - 1], v[static_cast<size_t>(below(static_cast<int>(i)))]);
+  }
 
  private:
   static std::uint64_t rotl(std::uint64_t x, int k) { return (x << k) | (x >> (64 - k)); }

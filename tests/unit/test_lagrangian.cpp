@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "fixtures.hpp"
+#include "row_rules_setup.hpp"
 #include "search/construction.hpp"
 #include "search/eligibility.hpp"
 #include "search/lagrangian.hpp"
@@ -18,8 +19,8 @@ using Clock = std::chrono::steady_clock;
 
 /// The re-fit's scenario: every rule is cover, cell-local or a hard row rule the re-fit models,
 /// so the relaxation is below every roster without a hard breach.
-struct Setup {
-  explicit Setup(const std::string& history) : p(test::rowRulesScenario(history)), set(p), e(p), refit(set, e), ev(set) {}
+struct Setup : test::RowRulesSetup {
+  using RowRulesSetup::RowRulesSetup;
   search::LagrangianResult run(std::uint64_t seed, int rounds, int keep, Clock::time_point deadline = Clock::time_point::max()) {
     search::Rng rng(seed);
     return search::lagrangianStarts(e, ev, refit, rng, rounds, keep, kWeight, deadline);
@@ -38,11 +39,6 @@ struct Setup {
         }
     return ev.roster();
   }
-  const model::Problem p;
-  const rules::RuleSet set;
-  const search::Eligibility e;
-  search::RowRefit refit;
-  eval::Evaluator ev;
 };
 
 }  // namespace

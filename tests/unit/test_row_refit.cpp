@@ -5,6 +5,7 @@
 #include <cmath>
 
 #include "fixtures.hpp"
+#include "row_rules_setup.hpp"
 #include "search/construction.hpp"
 #include "search/eligibility.hpp"
 #include "search/refit_chain.hpp"
@@ -56,18 +57,13 @@ std::vector<std::vector<TaskIdx>> feasibleRows(const search::Eligibility& e, eva
 }
 
 /// The scenario with everything a re-fit needs, and a random roster loaded.
-struct Setup {
-  explicit Setup(const std::string& history) : p(test::rowRulesScenario(history)), set(p), e(p), refit(set, e), ev(set) {}
+struct Setup : test::RowRulesSetup {
+  using RowRulesSetup::RowRulesSetup;
   void loadRandom(search::Rng& rng) {
     model::Roster r(p.staffCount(), p.days);
     search::randomRoster(e, r, 0.5, rng);
     ev.load(r);
   }
-  const model::Problem p;
-  const rules::RuleSet set;
-  const search::Eligibility e;
-  search::RowRefit refit;
-  eval::Evaluator ev;
 };
 
 }  // namespace
