@@ -53,8 +53,8 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
   const rules::CoverRule& cover = ev.rules().cover();
   const int people = p.staffCount(), tasks = p.taskCount();
   const size_t cells = static_cast<size_t>(p.days) * static_cast<size_t>(tasks);
-  // price[cell] = -reward: what a person's row pays for taking that (day, task).
-  std::vector<double> reward(cells, 0.0), price(cells, 0.0), gradient(cells, 0.0);
+  // What a person's row pays for taking each (day, task); negative: a reward for cover.
+  std::vector<double> price(cells, 0.0), gradient(cells, 0.0);
   std::vector<StaffIdx> order(static_cast<size_t>(people));
   for (StaffIdx s = 0; s < people; ++s) order[static_cast<size_t>(s)] = s;
   std::vector<std::pair<double, model::Roster>> pool;
@@ -67,7 +67,6 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
   int sinceBetter = 0;
   for (int round = 0; round < rounds; ++round) {
     // 1 - Every row at the current prices; with cover priced, rows do not depend on each other.
-    for (size_t c = 0; c < cells; ++c) price[c] = -reward[c];
     double rowsCost = 0;
     const bool priced = rewriteRows(ev, [&](StaffIdx s, DayIdx first, int length, eval::Move& move) {
       double cost = 0;
@@ -77,7 +76,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
     }, order, deadline);
     if (!priced) break;  // out of time: this round's rows are unfinished
 
-    // 2 - The cover side: for each cell the count y minimising cover cost + reward * y. Among
+    // 2 - The cover side: for each cell the count y minimising cover cost - price * y. Among
     // equal choices take the one nearest the rows' count, so a settled cell stops moving.
     double coverSide = 0, norm = 0;
     for (DayIdx d = 0; d < p.days; ++d)
@@ -88,7 +87,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
         double best = INFINITY;
         int bestY = x;
         for (int y = 0; y <= people; ++y) {
-          const double v = cover.cellTally(d, t, y).weighed(hardWeight) + reward[c] * y;
+          const double v = cover.cellTally(d, t, y).weighed(hardWeight) - price[c] * y;
           if (v < best - 1e-9 || (v <= best + 1e-9 && std::abs(y - x) < std::abs(bestY - x))) {
             best = v;
             bestY = y;
@@ -125,7 +124,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
     if (norm == 0) break;  // every cell settled: the prices cannot move
     const double step = scale * std::max(bestPrimal - dual, 0.0) / norm;
     if (step == 0) break;
-    for (size_t c = 0; c < cells; ++c) reward[c] += step * gradient[c];
+    for (size_t c = 0; c < cells; ++c) price[c] -= step * gradient[c];
   }
   result.dual = result.rounds > 0 ? bestDual : 0;
   for (auto& entry : pool) result.rosters.push_back(std::move(entry.second));

@@ -183,7 +183,8 @@ bool RowRefit::cheapestRow(const eval::Evaluator& ev, StaffIdx s, DayIdx first, 
     next_.clear();
     for (const TaskIdx* t = e_->begin(s, d); t != e_->end(s, d); ++t) {
       if (needs && (needs[d] == kAnyShift ? *t == kOff : needs[d] != kAnyTask && *t != needs[d])) continue;
-      // Cover change if this person takes *t, everyone else as they are.
+      // The cover this person's task earns: its price, or the change it makes with everyone
+      // else as they are.
       double cellCost = ev.cellCost(s, d, *t).weighed(hardWeight);
       if (*t != kOff && prices) {
         cellCost += prices[static_cast<size_t>(d) * static_cast<size_t>(p_->taskCount()) + static_cast<size_t>(*t)];

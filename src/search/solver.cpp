@@ -75,10 +75,9 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
     eval::Evaluator ev(rules);
     RowRefit refit(rules, eligibility);
     Rng rng(splitmix64(seedState));
-    const LagrangianResult relaxed = lagrangianStarts(eligibility, ev, refit, rng, options.lagrangianRounds, options.lagrangianStarts,
-                                                      kStartHardWeight, after(options.timeLimit * kLagrangianTimeShare));
-    starts = relaxed.rosters;
-    result.lagrangianRounds = relaxed.rounds;
+    starts = lagrangianStarts(eligibility, ev, refit, rng, options.lagrangianRounds, options.lagrangianStarts, kStartHardWeight,
+                              after(options.timeLimit * kLagrangianTimeShare))
+                 .rosters;
   }
 
   // 2 - Initial populations, one island per thread, within the time limit.

@@ -32,7 +32,6 @@ struct SolveResult {
   std::uint64_t seed = 0;
   int islands = 0;
   int threads = 0;
-  int lagrangianRounds = 0;  ///< subgradient rounds run for the starting rosters
   std::vector<std::pair<double, rules::Tally>> history;  ///< best over time
 };
 
