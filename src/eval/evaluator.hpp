@@ -45,6 +45,10 @@ class Evaluator {
     return cellCost_[(static_cast<size_t>(s) * static_cast<size_t>(days_) + static_cast<size_t>(d)) * static_cast<size_t>(tasks_) + static_cast<size_t>(t)];
   }
 
+  /// Penalty of person s's row rules if the row held `tasks` (one per period day): no cover or
+  /// fair share, so rows can be priced one at a time. Does not touch the loaded state.
+  Tally rowScore(StaffIdx s, const TaskIdx* tasks) { return rowTally(view(s, tasks)); }
+
   const rules::RuleSet& rules() const { return *rules_; }
 
  private:

@@ -5,6 +5,8 @@
 #include <cmath>
 #include <cstdlib>
 
+#include "search/pool_combination.hpp"
+#include "search/row_pool.hpp"
 #include "search/stop_signal.hpp"
 
 namespace rotaweave::search {
@@ -14,6 +16,10 @@ namespace {
 /// Rounds without a better relaxation before the step shrinks (a common subgradient schedule).
 constexpr int kPatience = 20;
 constexpr int kRepairPasses = 3;
+/// Cells the row pool may hold (2 bytes each): room for 1,000 rounds on 50 people over 31 days.
+constexpr size_t kMaxPoolCells = size_t{4} << 20;
+/// Share of the time left that the rounds may use; the pool's combination gets the rest.
+constexpr double kRoundsTimeShare = 0.75;
 
 /// Rewrites every row as `choose(s, first, length, move)` proposes, window by window; false,
 /// with the rows only partly rewritten, if `deadline` passes or a stop is requested on the way.
@@ -55,9 +61,21 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
   const size_t cells = static_cast<size_t>(p.days) * static_cast<size_t>(tasks);
   // What a person's row pays for taking each (day, task); negative: a reward for cover.
   std::vector<double> price(cells, 0.0), gradient(cells, 0.0);
+  // An optimal price lies between the cost of a cell's first person and of its last.
+  std::vector<double> low(cells, 0.0), high(cells, 0.0);
+  for (DayIdx d = 0; d < p.days; ++d)
+    for (TaskIdx t = 1; t < tasks; ++t) {
+      const size_t c = static_cast<size_t>(d) * static_cast<size_t>(tasks) + static_cast<size_t>(t);
+      low[c] = cover.cellTally(d, t, 1).weighed(hardWeight) - cover.cellTally(d, t, 0).weighed(hardWeight);
+      high[c] = cover.cellTally(d, t, people).weighed(hardWeight) - cover.cellTally(d, t, people - 1).weighed(hardWeight);
+    }
   std::vector<StaffIdx> order(static_cast<size_t>(people));
   for (StaffIdx s = 0; s < people; ++s) order[static_cast<size_t>(s)] = s;
   std::vector<std::pair<double, model::Roster>> pool;
+  RowPool rows(people, p.days, kMaxPoolCells);
+  const auto now = std::chrono::steady_clock::now();
+  const auto roundsEnd = deadline <= now ? deadline
+                                         : now + std::chrono::duration_cast<std::chrono::steady_clock::duration>((deadline - now) * kRoundsTimeShare);
 
   model::Roster start(people, p.days);  // each cell's first option: off unless the cell is fixed
   for (StaffIdx s = 0; s < people; ++s)
@@ -73,8 +91,9 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
       const bool found = refit.refitAtPrices(ev, s, first, length, price.data(), hardWeight, move, cost);
       rowsCost += found ? cost : 0;
       return found;
-    }, order, deadline);
+    }, order, roundsEnd);
     if (!priced) break;  // out of time: this round's rows are unfinished
+    rows.addRows(ev.roster());
 
     // 2 - The cover side: for each cell the count y minimising cover cost - price * y. Among
     // equal choices take the one nearest the rows' count, so a settled cell stops moving.
@@ -105,8 +124,9 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
       rng.shuffle(order);
       rewriteRows(ev, [&](StaffIdx s, DayIdx first, int length, eval::Move& move) {
         return refit.refit(ev, s, first, length, nullptr, hardWeight, move);
-      }, order, deadline);
+      }, order, roundsEnd);
     }
+    rows.addRows(ev.roster());
     result.rounds = round + 1;
     const double primal = ev.total().weighed(hardWeight);
     bestPrimal = std::min(bestPrimal, primal);
@@ -124,9 +144,18 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
     if (norm == 0) break;  // every cell settled: the prices cannot move
     const double step = scale * std::max(bestPrimal - dual, 0.0) / norm;
     if (step == 0) break;
-    for (size_t c = 0; c < cells; ++c) price[c] -= step * gradient[c];
+    for (size_t c = 0; c < cells; ++c) price[c] = std::clamp(price[c] - step * gradient[c], low[c], high[c]);
   }
   result.dual = result.rounds > 0 ? bestDual : 0;
+
+  // 5 - The rows each round proposed, combined: the rows a good roster needs tend to turn up
+  // in different rounds.
+  if (!pool.empty()) {
+    PoolSearchLimits limits;
+    limits.deadline = deadline;
+    const PoolCombination combined = combinePool(rows, ev, pool.front().second, hardWeight, rng, limits);
+    if (combined.roster) remember(pool, keep, ev.score(*combined.roster).weighed(hardWeight), *combined.roster);
+  }
   for (auto& entry : pool) result.rosters.push_back(std::move(entry.second));
   return result;
 }

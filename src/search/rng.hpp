@@ -1,5 +1,6 @@
 /// @brief A small, fast, seedable random engine (xoshiro256**), one per island; no global state.
 #pragma once
+#include <cstddef>
 #include <cstdint>
 #include <utility>
 #include <vector>
@@ -37,8 +38,10 @@ class Rng {
   bool chance(double p) { return uniform() < p; }
   /// Puts `v` in a uniformly random order (Fisher-Yates).
   template <class T>
-  void shuffle(std::vector<T>& v) {
-    for (size_t i = v.size(); i > 1; --i) std::swap(v[i - 1], v[static_cast<size_t>(below(static_cast<int>(i)))]);
+  void shuffle(std::vector<T>& v) { shuffle(v.data(), v.data() + v.size()); }
+  template <class T>
+  void shuffle(T* first, T* last) {
+    for (std::ptrdiff_t i = last - first; i > 1; --i) std::swap(first[i - 1], first[below(static_cast<int>(i))]);
   }
 
  private:
