@@ -14,6 +14,8 @@ namespace {
 /// Dual rounds without a better value before the step halves. The pool's dual is cheap to
 /// evaluate, so it can afford a patient schedule (20 left it 5 points short on Instance 2).
 constexpr int kPatience = 100;
+/// Restarts at each target before the next, wider one.
+constexpr int kRestartsPerTarget = 20;
 
 /// The pool as a set-partitioning model: one column per pooled row, filling the cover cells
 /// its worked days count towards.
@@ -168,6 +170,7 @@ class CombinationSearch {
       : m_(m), bound_(dual.value), best_(upper), people_(static_cast<size_t>(m.people)), cells_(static_cast<size_t>(m.cells)) {
     tolerance_ = 1e-6 * std::max(1.0, m.granularity);
     unit_ = std::max(m.granularity, 2 * tolerance_);
+    ceiling_ = best_ - unit_;
     // Reduced costs of columns and of cover counts at the dual's prices.
     slack_.resize(m.rowCost.size());
     for (size_t s = 0; s < people_; ++s) {
@@ -209,14 +212,18 @@ class CombinationSearch {
 
   /// True once no combination can beat the best found: the bound says so, or a restart
   /// searched its whole tree.
-  bool proven() const { return exhausted_ || budget(0) < 0; }
+  bool proven() const { return exhausted_ || best_ - unit_ + tolerance_ < bound_; }
+  /// The least a combination can cost: the bound, rounded up to a whole unit when costs come
+  /// in units.
+  double least() const { return m_.granularity > 0 ? std::ceil(bound_ / m_.granularity - 1e-9) * m_.granularity : bound_; }
+  double unit() const { return m_.granularity > 0 ? m_.granularity : kCostScale; }
   double bound() const { return bound_; }
   const std::optional<std::vector<size_t>>& best() const { return bestChoice_; }
   long nodes() const { return nodes_; }
 
-  /// One depth-first search of at most `nodeLimit` nodes, ties among equal reduced costs in a
-  /// new random order.
-  void restart(Rng& rng, long nodeLimit, std::chrono::steady_clock::time_point deadline) {
+  /// One depth-first search of at most `nodeLimit` nodes for a combination cheaper than the
+  /// best and costing at most `target`; ties among equal reduced costs in a new random order.
+  void restart(Rng& rng, long nodeLimit, std::chrono::steady_clock::time_point deadline, double target) {
     for (auto& list : candidates_)
       for (size_t a = 0; a < list.size();) {
         size_t b = a;
@@ -226,13 +233,16 @@ class CombinationSearch {
       }
     nodeLimit_ = nodes_ + nodeLimit;
     deadline_ = deadline;
+    target_ = target;
+    ceiling_ = std::min(best_ - unit_, target_);
+    const bool capped = target_ < best_ - unit_;
     descend(0, 0.0);
-    exhausted_ = exhausted_ || nodes_ < nodeLimit_;
+    exhausted_ = exhausted_ || (!capped && nodes_ < nodeLimit_);
   }
 
  private:
   /// How much more reduced cost a combination may carry and still beat the best by a unit.
-  double budget(double used) const { return best_ - unit_ + tolerance_ - bound_ - used; }
+  double budget(double used) const { return ceiling_ + tolerance_ - bound_ - used; }
   double countSlack(size_t k, int y) const { return countSlack_[k * (people_ + 1) + static_cast<size_t>(y)]; }
   /// Whether column `col` still fits: no cell it fills is pushed past every count within `room`.
   bool fits(size_t col, double room) const {
@@ -254,8 +264,9 @@ class CombinationSearch {
       double cost = 0;
       for (size_t s = 0; s < people_; ++s) cost += m_.rowCost[choice_[s]];
       for (size_t k = 0; k < cells_; ++k) cost += m_.cover(static_cast<int>(k), count_[k]);
-      if (cost <= best_ - unit_ + tolerance_) {
+      if (cost <= ceiling_ + tolerance_) {
         best_ = cost;
+        ceiling_ = std::min(best_ - unit_, target_);
         bestChoice_ = choice_;
       }
       return;
@@ -313,6 +324,7 @@ class CombinationSearch {
   const PoolModel& m_;
   double bound_, best_;
   double tolerance_ = 0, unit_ = 0;  ///< float slack; the least a better combination saves
+  double target_ = INFINITY, ceiling_ = 0;  ///< the restart's cap; the most a new best may cost
   size_t people_, cells_;
   std::vector<double> slack_, countSlack_, countSlackFrom_;
   std::vector<std::vector<size_t>> candidates_;
@@ -338,9 +350,13 @@ PoolCombination combinePool(const RowPool& pool, eval::Evaluator& ev, const mode
   const double upper = modelCost(m, ev, incumbent, hardWeight, cellOf);
   const PoolDual dual = solveDual(m, upper, limits.dualRounds, limits.deadline);
   CombinationSearch search(m, dual, upper);
+  // Look near the bound first, where few rows fit and the search is quick, then further out:
+  // targets one, two, four... units above it, a share of the restarts each, then uncapped.
+  double target = search.least();
   for (int r = 0; r < limits.restarts && !search.proven(); ++r) {
     if (std::chrono::steady_clock::now() >= limits.deadline || stopRequested()) break;
-    search.restart(rng, limits.nodesPerRestart, limits.deadline);
+    if (r > 0 && r % kRestartsPerTarget == 0) target = search.least() + (target - search.least()) * 2 + search.unit();
+    search.restart(rng, limits.nodesPerRestart, limits.deadline, target);
   }
   result.bound = search.bound();
   result.proven = search.proven();
