@@ -18,8 +18,8 @@ constexpr int kPatience = 20;
 constexpr int kRepairPasses = 3;
 /// Cells the row pool may hold (2 bytes each): room for 1,000 rounds on 50 people over 31 days.
 constexpr size_t kMaxPoolCells = size_t{4} << 20;
-/// Share of the time left that the rounds may use; the pool's combination gets the rest.
-constexpr double kRoundsTimeShare = 0.75;
+/// Time the pool's combination may take after the rounds, as a share of the rounds' time.
+constexpr double kCombineTimeShare = 0.2;
 
 /// Rewrites every row as `choose(s, first, length, move)` proposes, window by window; false,
 /// with the rows only partly rewritten, if `deadline` passes or a stop is requested on the way.
@@ -73,9 +73,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
   for (StaffIdx s = 0; s < people; ++s) order[static_cast<size_t>(s)] = s;
   std::vector<std::pair<double, model::Roster>> pool;
   RowPool rows(people, p.days, kMaxPoolCells);
-  const auto now = std::chrono::steady_clock::now();
-  const auto roundsEnd = deadline <= now ? deadline
-                                         : now + std::chrono::duration_cast<std::chrono::steady_clock::duration>((deadline - now) * kRoundsTimeShare);
+  const auto began = std::chrono::steady_clock::now();
 
   model::Roster start(people, p.days);  // each cell's first option: off unless the cell is fixed
   for (StaffIdx s = 0; s < people; ++s)
@@ -91,7 +89,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
       const bool found = refit.refitAtPrices(ev, s, first, length, price.data(), hardWeight, move, cost);
       rowsCost += found ? cost : 0;
       return found;
-    }, order, roundsEnd);
+    }, order, deadline);
     if (!priced) break;  // out of time: this round's rows are unfinished
     rows.addRows(ev.roster());
 
@@ -124,7 +122,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
       rng.shuffle(order);
       rewriteRows(ev, [&](StaffIdx s, DayIdx first, int length, eval::Move& move) {
         return refit.refit(ev, s, first, length, nullptr, hardWeight, move);
-      }, order, roundsEnd);
+      }, order, deadline);
     }
     rows.addRows(ev.roster());
     result.rounds = round + 1;
@@ -152,7 +150,8 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
   // in different rounds.
   if (!pool.empty()) {
     PoolSearchLimits limits;
-    limits.deadline = deadline;
+    const auto now = std::chrono::steady_clock::now();
+    limits.deadline = now + std::chrono::duration_cast<std::chrono::steady_clock::duration>((std::max(now, deadline) - began) * kCombineTimeShare);
     const PoolCombination combined = combinePool(rows, ev, pool.front().second, hardWeight, rng, limits);
     if (combined.roster) remember(pool, keep, ev.score(*combined.roster).weighed(hardWeight), *combined.roster);
   }

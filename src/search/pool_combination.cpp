@@ -349,6 +349,7 @@ PoolCombination combinePool(const RowPool& pool, eval::Evaluator& ev, const mode
   const PoolModel m = buildModel(pool, ev, hardWeight, cellOf);
   const double upper = modelCost(m, ev, incumbent, hardWeight, cellOf);
   const PoolDual dual = solveDual(m, upper, limits.dualRounds, limits.deadline);
+  if (!std::isfinite(dual.value)) return result;  // no round ran: nothing to bound a search by
   CombinationSearch search(m, dual, upper);
   // Look near the bound first, where few rows fit and the search is quick, then further out:
   // targets one, two, four... units above it, a share of the restarts each, then uncapped.

@@ -26,7 +26,7 @@ const std::vector<ParameterInfo>& parameterTable() {
       {"chain-interval", "local-search moves between ejection chains, which fill a gap in cover by passing shifts along a chain of people (0: none)", 0, 1e7, static_cast<double>(d.chainInterval), true},
       {"refit-interval", "local-search moves between refit chains, which force one person's row to change on one day, re-fit it whole and let others re-fit theirs in answer (0: none)", 0, 1e7, static_cast<double>(d.refitInterval), true},
       {"refit-passes", "rounds in which everyone else re-fits their row in answer, in each refit chain", 0, 10, static_cast<double>(d.refitPasses), true},
-      {"lagrangian-rounds", "subgradient rounds that price cover so each person's row can be chosen alone; their best rosters start every island (0: none; capped at a quarter of the time limit)", 0, 1e6, static_cast<double>(d.lagrangianRounds), true},
+      {"lagrangian-rounds", "subgradient rounds that price cover so each person's row can be chosen alone; the rows they propose are combined into the cheapest roster found, and the best rosters start every island (0: none; capped at a quarter of the time limit)", 0, 1e6, static_cast<double>(d.lagrangianRounds), true},
       {"lagrangian-starts", "rosters from those rounds that join every island's first population", 0, 1000, static_cast<double>(d.lagrangianStarts), true},
       {"hard-weight", "while searching, a hard penalty point counts as at least this many soft points; more while the search stays infeasible", 1, 1e6, d.hardWeightFloor, false},
       {"migration-interval", "generations between migrations on the island ring", 1, 1e6, static_cast<double>(d.migrationInterval), true},
