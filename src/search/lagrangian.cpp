@@ -6,6 +6,7 @@
 #include <cstdlib>
 
 #include "search/pool_combination.hpp"
+#include "search/priced_cover.hpp"
 #include "search/row_pool.hpp"
 #include "search/stop_signal.hpp"
 
@@ -61,14 +62,11 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
   const size_t cells = static_cast<size_t>(p.days) * static_cast<size_t>(tasks);
   // What a person's row pays for taking each (day, task); negative: a reward for cover.
   std::vector<double> price(cells, 0.0), gradient(cells, 0.0);
-  // An optimal price lies between the cost of a cell's first person and of its last.
-  std::vector<double> low(cells, 0.0), high(cells, 0.0);
+  auto coverCost = [&](DayIdx d, TaskIdx t) { return [&, d, t](int y) { return cover.cellTally(d, t, y).weighed(hardWeight); }; };
+  std::vector<PriceRange> range(cells, PriceRange{0.0, 0.0});
   for (DayIdx d = 0; d < p.days; ++d)
-    for (TaskIdx t = 1; t < tasks; ++t) {
-      const size_t c = static_cast<size_t>(d) * static_cast<size_t>(tasks) + static_cast<size_t>(t);
-      low[c] = cover.cellTally(d, t, 1).weighed(hardWeight) - cover.cellTally(d, t, 0).weighed(hardWeight);
-      high[c] = cover.cellTally(d, t, people).weighed(hardWeight) - cover.cellTally(d, t, people - 1).weighed(hardWeight);
-    }
+    for (TaskIdx t = 1; t < tasks; ++t)
+      range[static_cast<size_t>(d) * static_cast<size_t>(tasks) + static_cast<size_t>(t)] = optimalPriceRange(people, coverCost(d, t));
   std::vector<StaffIdx> order(static_cast<size_t>(people));
   for (StaffIdx s = 0; s < people; ++s) order[static_cast<size_t>(s)] = s;
   std::vector<std::pair<double, model::Roster>> pool;
@@ -93,25 +91,16 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
     if (!priced) break;  // out of time: this round's rows are unfinished
     rows.addRows(ev.roster());
 
-    // 2 - The cover side: for each cell the count y minimising cover cost - price * y. Among
-    // equal choices take the one nearest the rows' count, so a settled cell stops moving.
+    // 2 - The cover side: for each cell the count cheapest at its price.
     double coverSide = 0, norm = 0;
     for (DayIdx d = 0; d < p.days; ++d)
       for (TaskIdx t = 1; t < tasks; ++t) {
         const size_t c = static_cast<size_t>(d) * static_cast<size_t>(tasks) + static_cast<size_t>(t);
         if (!p.demandAt(d, t).defined) continue;
         const int x = ev.coverCount(d, t);
-        double best = INFINITY;
-        int bestY = x;
-        for (int y = 0; y <= people; ++y) {
-          const double v = cover.cellTally(d, t, y).weighed(hardWeight) - price[c] * y;
-          if (v < best - 1e-9 || (v <= best + 1e-9 && std::abs(y - x) < std::abs(bestY - x))) {
-            best = v;
-            bestY = y;
-          }
-        }
-        coverSide += best;
-        gradient[c] = bestY - x;
+        const CountChoice best = cheapestCount(people, price[c], x, coverCost(d, t));
+        coverSide += best.value;
+        gradient[c] = best.count - x;
         norm += gradient[c] * gradient[c];
       }
     const double dual = rowsCost + coverSide;
@@ -142,7 +131,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
     if (norm == 0) break;  // every cell settled: the prices cannot move
     const double step = scale * std::max(bestPrimal - dual, 0.0) / norm;
     if (step == 0) break;
-    for (size_t c = 0; c < cells; ++c) price[c] = std::clamp(price[c] - step * gradient[c], low[c], high[c]);
+    for (size_t c = 0; c < cells; ++c) price[c] = std::clamp(price[c] - step * gradient[c], range[c].low, range[c].high);
   }
   result.dual = result.rounds > 0 ? bestDual : 0;
 

@@ -5,6 +5,7 @@
 #include <cmath>
 #include <numeric>
 
+#include "search/priced_cover.hpp"
 #include "search/stop_signal.hpp"
 
 namespace rotaweave::search {
@@ -29,9 +30,21 @@ struct PoolModel {
   double granularity = 0;          ///< every cost is a multiple of it (0: not known)
 
   double cover(int cell, int count) const { return coverCost[static_cast<size_t>(cell) * static_cast<size_t>(people + 1) + static_cast<size_t>(count)]; }
+  auto coverOf(int cell) const { return [this, cell](int count) { return cover(cell, count); }; }
   const int* coveredBegin(size_t col) const { return covered.data() + coverBegin[col]; }
   const int* coveredEnd(size_t col) const { return covered.data() + coverBegin[col + 1]; }
+  /// A column's row cost plus the prices of the cells it fills.
+  double pricedCost(size_t col, const std::vector<double>& price) const {
+    double v = rowCost[col];
+    for (const int* c = coveredBegin(col); c != coveredEnd(col); ++c) v += price[static_cast<size_t>(*c)];
+    return v;
+  }
 };
+
+/// The modelled cell person's task `t` fills on day `d`, or -1 (off, or no demand there).
+int cellAt(const std::vector<int>& cellOf, int tasks, DayIdx d, TaskIdx t) {
+  return t == kOff ? -1 : cellOf[static_cast<size_t>(d) * static_cast<size_t>(tasks) + static_cast<size_t>(t)];
+}
 
 /// The greatest common divisor of the costs when all are whole numbers, else 0.
 double granularityOf(const std::vector<double>& a, const std::vector<double>& b) {
@@ -62,11 +75,8 @@ PoolModel buildModel(const RowPool& pool, eval::Evaluator& ev, double hardWeight
     for (const auto& row : pool.rows(s)) {
       m.rowCost.push_back(ev.rowScore(s, row.data()).weighed(hardWeight));
       m.coverBegin.push_back(m.covered.size());
-      for (DayIdx d = 0; d < pool.days(); ++d) {
-        const TaskIdx t = row[static_cast<size_t>(d)];
-        const int cell = t == kOff ? -1 : cellOf[static_cast<size_t>(d) * static_cast<size_t>(tasks) + static_cast<size_t>(t)];
-        if (cell >= 0) m.covered.push_back(cell);
-      }
+      for (DayIdx d = 0; d < pool.days(); ++d)
+        if (const int cell = cellAt(cellOf, tasks, d, row[static_cast<size_t>(d)]); cell >= 0) m.covered.push_back(cell);
     }
   }
   m.firstColumn.push_back(m.rowCost.size());
@@ -83,11 +93,8 @@ double modelCost(const PoolModel& m, eval::Evaluator& ev, const model::Roster& r
   double cost = 0;
   for (StaffIdx s = 0; s < roster.staff; ++s) {
     cost += ev.rowScore(s, roster.row(s)).weighed(hardWeight);
-    for (DayIdx d = 0; d < roster.days; ++d) {
-      const TaskIdx t = roster.at(s, d);
-      const int cell = t == kOff ? -1 : cellOf[static_cast<size_t>(d) * static_cast<size_t>(tasks) + static_cast<size_t>(t)];
-      if (cell >= 0) ++count[static_cast<size_t>(cell)];
-    }
+    for (DayIdx d = 0; d < roster.days; ++d)
+      if (const int cell = cellAt(cellOf, tasks, d, roster.at(s, d)); cell >= 0) ++count[static_cast<size_t>(cell)];
   }
   for (int c = 0; c < m.cells; ++c) cost += m.cover(c, count[static_cast<size_t>(c)]);
   return cost;
@@ -103,11 +110,9 @@ struct PoolDual {
 
 PoolDual solveDual(const PoolModel& m, double upper, int rounds, std::chrono::steady_clock::time_point deadline) {
   const size_t cells = static_cast<size_t>(m.cells);
-  std::vector<double> price(cells, 0.0), low(cells), high(cells), gradient(cells);
-  for (int c = 0; c < m.cells; ++c) {
-    low[static_cast<size_t>(c)] = m.cover(c, 1) - m.cover(c, 0);
-    high[static_cast<size_t>(c)] = m.cover(c, m.people) - m.cover(c, m.people - 1);
-  }
+  std::vector<double> price(cells, 0.0), gradient(cells);
+  std::vector<PriceRange> range;
+  for (int c = 0; c < m.cells; ++c) range.push_back(optimalPriceRange(m.people, m.coverOf(c)));
   std::vector<int> count(cells);
   PoolDual best;
   best.price = price;
@@ -120,29 +125,20 @@ PoolDual solveDual(const PoolModel& m, double upper, int rounds, std::chrono::st
     for (int s = 0; s < m.people; ++s) {
       double cheapest = INFINITY;
       size_t pick = m.firstColumn[static_cast<size_t>(s)];
-      for (size_t col = m.firstColumn[static_cast<size_t>(s)]; col < m.firstColumn[static_cast<size_t>(s) + 1]; ++col) {
-        double v = m.rowCost[col];
-        for (const int* c = m.coveredBegin(col); c != m.coveredEnd(col); ++c) v += price[static_cast<size_t>(*c)];
-        if (v < cheapest) { cheapest = v; pick = col; }
-      }
+      for (size_t col = m.firstColumn[static_cast<size_t>(s)]; col < m.firstColumn[static_cast<size_t>(s) + 1]; ++col)
+        if (const double v = m.pricedCost(col, price); v < cheapest) {
+          cheapest = v;
+          pick = col;
+        }
       value += cheapest;
       for (const int* c = m.coveredBegin(pick); c != m.coveredEnd(pick); ++c) ++count[static_cast<size_t>(*c)];
     }
     double norm = 0;
     for (int c = 0; c < m.cells; ++c) {
       const size_t k = static_cast<size_t>(c);
-      // Among equal counts take the one nearest the rows' count, so a settled cell stops moving.
-      double cheapest = INFINITY;
-      int pick = count[k];
-      for (int y = 0; y <= m.people; ++y) {
-        const double v = m.cover(c, y) - price[k] * y;
-        if (v < cheapest - 1e-9 || (v <= cheapest + 1e-9 && std::abs(y - count[k]) < std::abs(pick - count[k]))) {
-          cheapest = v;
-          pick = y;
-        }
-      }
-      value += cheapest;
-      gradient[k] = pick - count[k];
+      const CountChoice cheapest = cheapestCount(m.people, price[k], count[k], m.coverOf(c));
+      value += cheapest.value;
+      gradient[k] = cheapest.count - count[k];
       norm += gradient[k] * gradient[k];
     }
     if (value > best.value + 1e-9) {
@@ -155,7 +151,7 @@ PoolDual solveDual(const PoolModel& m, double upper, int rounds, std::chrono::st
     }
     const double step = scale * std::max(upper - value, 0.0) / norm;
     if (norm == 0 || !(step > 1e-12)) break;  // settled, at the upper bound, or the step vanished
-    for (size_t k = 0; k < cells; ++k) price[k] = std::clamp(price[k] - step * gradient[k], low[k], high[k]);
+    for (size_t k = 0; k < cells; ++k) price[k] = std::clamp(price[k] - step * gradient[k], range[k].low, range[k].high);
   }
   return best;
 }
@@ -176,10 +172,8 @@ class CombinationSearch {
     for (size_t s = 0; s < people_; ++s) {
       double least = INFINITY;
       for (size_t col = m.firstColumn[s]; col < m.firstColumn[s + 1]; ++col) {
-        double v = m.rowCost[col];
-        for (const int* c = m.coveredBegin(col); c != m.coveredEnd(col); ++c) v += dual.price[static_cast<size_t>(*c)];
-        slack_[col] = v;
-        least = std::min(least, v);
+        slack_[col] = m.pricedCost(col, dual.price);
+        least = std::min(least, slack_[col]);
       }
       for (size_t col = m.firstColumn[s]; col < m.firstColumn[s + 1]; ++col) slack_[col] -= least;
     }
@@ -187,8 +181,7 @@ class CombinationSearch {
     countSlack_.resize(cells_ * counts);
     countSlackFrom_.resize(cells_ * (counts + 1), INFINITY);
     for (size_t k = 0; k < cells_; ++k) {
-      double least = INFINITY;
-      for (size_t y = 0; y < counts; ++y) least = std::min(least, m.cover(static_cast<int>(k), static_cast<int>(y)) - dual.price[k] * static_cast<double>(y));
+      const double least = cheapestCount(m.people, dual.price[k], 0, m.coverOf(static_cast<int>(k))).value;
       for (size_t y = 0; y < counts; ++y)
         countSlack_[k * counts + y] = m.cover(static_cast<int>(k), static_cast<int>(y)) - dual.price[k] * static_cast<double>(y) - least;
       for (size_t y = counts; y-- > 0;)
