@@ -203,9 +203,9 @@ class CombinationSearch {
     choice_.assign(people_, 0);
   }
 
-  /// True once no combination can beat the best found: the bound says so, or a restart
-  /// searched its whole tree.
-  bool proven() const { return exhausted_ || best_ - unit_ + tolerance_ < bound_; }
+  /// True once no combination can beat the best found: the bound says so (penalties are never
+  /// negative, so 0 bounds too), or a restart searched its whole tree.
+  bool proven() const { return exhausted_ || best_ - unit_ + tolerance_ < std::max(bound_, 0.0); }
   /// The least a combination can cost: the bound, rounded up to a whole unit when costs come
   /// in units.
   double least() const { return m_.granularity > 0 ? std::ceil(bound_ / m_.granularity - 1e-9) * m_.granularity : bound_; }

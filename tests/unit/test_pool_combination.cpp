@@ -77,7 +77,7 @@ TEST_SUITE("search") {
   TEST_CASE("the pool combination is the cheapest combination of pooled rows") {
     // Every rule in this scenario is a row rule or cover, so the model's cost is the
     // evaluator's: the combination must match the enumeration exactly.
-    for (const std::uint64_t seed : {1, 2, 3, 4}) {
+    for (std::uint64_t seed = 1; seed <= 4; ++seed) {
       CAPTURE(seed);
       Setup x;
       search::Rng rng(seed);
