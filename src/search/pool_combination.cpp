@@ -108,7 +108,9 @@ struct PoolDual {
   double value = -INFINITY;
 };
 
-PoolDual solveDual(const PoolModel& m, double upper, int rounds, std::chrono::steady_clock::time_point deadline) {
+/// Stops early once the value passes `enough`: every combination then costs more than that.
+PoolDual solveDual(const PoolModel& m, double upper, double enough, int rounds,
+                   std::chrono::steady_clock::time_point deadline) {
   const size_t cells = static_cast<size_t>(m.cells);
   std::vector<double> price(cells, 0.0), gradient(cells);
   std::vector<PriceRange> range;
@@ -145,6 +147,7 @@ PoolDual solveDual(const PoolModel& m, double upper, int rounds, std::chrono::st
       best.value = value;
       best.price = price;
       sinceBetter = 0;
+      if (value > enough) break;
     } else if (++sinceBetter >= kPatience) {
       scale /= 2;
       sinceBetter = 0;
@@ -341,8 +344,12 @@ PoolCombination combinePool(const RowPool& pool, eval::Evaluator& ev, const mode
   std::vector<int> cellOf;
   const PoolModel m = buildModel(pool, ev, hardWeight, cellOf);
   const double upper = modelCost(m, ev, incumbent, hardWeight, cellOf);
-  const PoolDual dual = solveDual(m, upper, limits.dualRounds, limits.deadline);
+  const PoolDual dual = solveDual(m, upper, limits.worthwhileCost, limits.dualRounds, limits.deadline);
   if (!std::isfinite(dual.value)) return result;  // no round ran: nothing to bound a search by
+  if (dual.value > limits.worthwhileCost) {
+    result.bound = dual.value;
+    return result;
+  }
   CombinationSearch search(m, dual, upper);
   // Look near the bound first, where few rows fit and the search is quick, then further out:
   // targets one, two, four... units above it, a share of the restarts each, then uncapped.

@@ -11,6 +11,7 @@
 /// the combination is a proposal for the evaluator, never trusted.
 #pragma once
 #include <chrono>
+#include <cmath>
 #include <optional>
 
 #include "eval/evaluator.hpp"
@@ -23,6 +24,9 @@ struct PoolSearchLimits {
   int dualRounds = 30000;       ///< subgradient rounds on the pool's dual
   int restarts = 2000;          ///< depth-first searches, each with ties in a fresh random order
   long nodesPerRestart = 2000;  ///< search nodes one restart may visit
+  /// The most a combination worth having may cost: once the pool's dual shows every one costs
+  /// more, the search is not run.
+  double worthwhileCost = INFINITY;
   std::chrono::steady_clock::time_point deadline = std::chrono::steady_clock::time_point::max();
 };
 

@@ -103,6 +103,15 @@ TEST_SUITE("search") {
         CHECK(std::find(x.pool.rows(s).begin(), x.pool.rows(s).end(), row) != x.pool.rows(s).end());
       }
 
+      // Not run once the pool's dual shows every combination costs more than is worth having.
+      REQUIRE(result.bound > 0);
+      search::PoolSearchLimits modest;
+      modest.worthwhileCost = result.bound / 2;
+      const search::PoolCombination skipped = search::combinePool(x.pool, x.ev, *worst, kWeight, rng, modest);
+      CHECK_FALSE(skipped.roster.has_value());
+      CHECK(skipped.nodes == 0);
+      CHECK(skipped.bound > modest.worthwhileCost);
+
       // From the cheapest roster itself there is nothing better to find.
       const search::PoolCombination again = search::combinePool(x.pool, x.ev, *result.roster, kWeight, rng, {});
       CHECK_FALSE(again.roster.has_value());
