@@ -4,8 +4,9 @@
 /// (day, task) cell, tuned by subgradient steps) lets every row be chosen on its own by the
 /// exact row re-fit. The priced rows show which days and weekends each person should work in
 /// a good roster, even where the local search would need many rows to change together to find
-/// that out. Each round's priced roster is repaired by re-fitting rows against the real cover,
-/// and the best repaired rosters seed the islands.
+/// that out. Each round's priced roster is repaired by re-fitting rows against the real cover.
+/// Every row proposed on the way is pooled, and the pool's cheapest combination
+/// (search/pool_combination.hpp) joins the best repaired rosters that seed the islands.
 #pragma once
 #include <chrono>
 #include <vector>
@@ -18,7 +19,7 @@
 namespace rotaweave::search {
 
 struct LagrangianResult {
-  std::vector<model::Roster> rosters;  ///< the best distinct repaired rosters, best first
+  std::vector<model::Roster> rosters;  ///< the best distinct repaired or combined rosters, best first
   /// Best value of the relaxation, in weighed cost units (0 if no round ran). A lower bound on
   /// every roster only when each rule is cover, cell-local or a hard rule the re-fit models,
   /// every row has a feasible choice and the period fits in one re-fit window.
