@@ -3,7 +3,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <cstdlib>
 
 #include "search/pool_combination.hpp"
 #include "search/priced_cover.hpp"
@@ -48,14 +47,14 @@ bool rewriteRows(eval::Evaluator& ev, Choose&& choose, const std::vector<StaffId
 }
 
 /// Keeps the best `keep` distinct rosters seen, best first.
-void remember(std::vector<std::pair<double, model::Roster>>& pool, int keep, double value, const model::Roster& roster) {
+void remember(std::vector<std::pair<double, model::Roster>>& kept, int keep, double value, const model::Roster& roster) {
   if (keep <= 0) return;
-  for (const auto& [v, r] : pool)
+  for (const auto& [v, r] : kept)
     if (v == value && r.cells == roster.cells) return;
-  if (static_cast<int>(pool.size()) == keep && value >= pool.back().first) return;
-  if (static_cast<int>(pool.size()) == keep) pool.pop_back();
-  const auto at = std::find_if(pool.begin(), pool.end(), [&](const auto& entry) { return value < entry.first; });
-  pool.insert(at, {value, roster});
+  if (static_cast<int>(kept.size()) == keep && value >= kept.back().first) return;
+  if (static_cast<int>(kept.size()) == keep) kept.pop_back();
+  const auto at = std::find_if(kept.begin(), kept.end(), [&](const auto& entry) { return value < entry.first; });
+  kept.insert(at, {value, roster});
 }
 
 }  // namespace
@@ -76,7 +75,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
       range[static_cast<size_t>(d) * static_cast<size_t>(tasks) + static_cast<size_t>(t)] = optimalPriceRange(people, coverCost(d, t));
   std::vector<StaffIdx> order(static_cast<size_t>(people));
   for (StaffIdx s = 0; s < people; ++s) order[static_cast<size_t>(s)] = s;
-  std::vector<std::pair<double, model::Roster>> pool;
+  std::vector<std::pair<double, model::Roster>> kept;  // (weighed cost, roster), best first
   RowPool rows(people, p.days, kMaxPoolCells);
   const auto began = std::chrono::steady_clock::now();
 
@@ -124,7 +123,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
     result.rounds = round + 1;
     const double primal = ev.total().weighed(hardWeight);
     bestPrimal = std::min(bestPrimal, primal);
-    remember(pool, keep, primal, ev.roster());
+    remember(kept, keep, primal, ev.roster());
 
     // 4 - A subgradient step towards the target (the best roster so far), shrinking when the
     // relaxation stops improving.
@@ -144,15 +143,15 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
 
   // 5 - The rows each round proposed, combined: the rows a good roster needs tend to turn up
   // in different rounds.
-  if (!pool.empty()) {
+  if (!kept.empty()) {
     PoolSearchLimits limits;
     const auto now = std::chrono::steady_clock::now();
     limits.deadline = now + std::chrono::duration_cast<std::chrono::steady_clock::duration>((now - began) * kCombineTimeShare);
     limits.worthwhileCost = (1 + kWorthwhileGap) * std::max(result.dual, 0.0);
-    const PoolCombination combined = combinePool(rows, ev, pool.front().second, hardWeight, rng, limits);
-    if (combined.roster) remember(pool, keep, ev.score(*combined.roster).weighed(hardWeight), *combined.roster);
+    const PoolCombination combined = combinePool(rows, ev, kept.front().second, hardWeight, rng, limits);
+    if (combined.roster) remember(kept, keep, ev.score(*combined.roster).weighed(hardWeight), *combined.roster);
   }
-  for (auto& entry : pool) result.rosters.push_back(std::move(entry.second));
+  for (auto& entry : kept) result.rosters.push_back(std::move(entry.second));
   return result;
 }
 

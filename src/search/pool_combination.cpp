@@ -188,7 +188,7 @@ class CombinationSearch {
       for (size_t y = 0; y < counts; ++y)
         countSlack_[k * counts + y] = m.cover(static_cast<int>(k), static_cast<int>(y)) - dual.price[k] * static_cast<double>(y) - least;
       for (size_t y = counts; y-- > 0;)
-        countSlackFrom_[k * (counts + 1) + y] = std::min(countSlack_[k * counts + y], countSlackFrom_[k * (counts + 1) + y + 1]);
+        countSlackFrom_[k * (counts + 1) + y] = std::min(countSlack(k, static_cast<int>(y)), countSlackFrom(k, static_cast<int>(y) + 1));
     }
     // Candidates: the columns that fit the first gap, cheapest reduced cost first.
     candidates_.resize(people_);
@@ -240,11 +240,13 @@ class CombinationSearch {
   /// How much more reduced cost a combination may carry and still beat the best by a unit.
   double budget(double used) const { return ceiling_ + tolerance_ - bound_ - used; }
   double countSlack(size_t k, int y) const { return countSlack_[k * (people_ + 1) + static_cast<size_t>(y)]; }
+  /// The cheapest reduced cost of cell k at a count of y or more (infinite past everyone).
+  double countSlackFrom(size_t k, int y) const { return countSlackFrom_[k * (people_ + 2) + static_cast<size_t>(y)]; }
   /// Whether column `col` still fits: no cell it fills is pushed past every count within `room`.
   bool fits(size_t col, double room) const {
     for (const int* c = m_.coveredBegin(col); c != m_.coveredEnd(col); ++c) {
       const size_t k = static_cast<size_t>(*c);
-      if (countSlackFrom_[k * (people_ + 2) + static_cast<size_t>(count_[k]) + 1] > room) return false;
+      if (countSlackFrom(k, count_[k] + 1) > room) return false;
     }
     return true;
   }
