@@ -80,9 +80,13 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
                  .rosters;
   }
 
+  result.phases.push_back({"starts", elapsed()});
+
   // 2 - Initial populations, one island per thread, within the time limit.
 #pragma omp parallel for num_threads(result.threads) schedule(dynamic, 1)
   for (int i = 0; i < result.islands; ++i) islands[static_cast<size_t>(i)]->initialize(seeds, starts, deadline);
+
+  result.phases.push_back({"populations", elapsed() - result.phases.back().seconds});
 
   auto bestIsland = [&] {
     int best = 0;
@@ -137,6 +141,7 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
       onProgress(p);
     }
   }
+  result.phases.push_back({"generations", elapsed() - result.phases[0].seconds - result.phases[1].seconds});
   const Island& winner = *islands[static_cast<size_t>(bestIsland())];
   result.best = winner.best().genome;
   result.score = winner.best().score;

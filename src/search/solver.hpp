@@ -23,6 +23,12 @@ struct Progress {
   std::vector<rules::Tally> islandBest;
 };
 
+/// Wall time one phase of a solve took.
+struct PhaseTime {
+  const char* name;  ///< "starts" (relaxation and pool), "populations", "generations"
+  double seconds;
+};
+
 struct SolveResult {
   model::Roster best;
   rules::Tally score;
@@ -33,6 +39,7 @@ struct SolveResult {
   int islands = 0;
   int threads = 0;
   std::vector<std::pair<double, rules::Tally>> history;  ///< best over time
+  std::vector<PhaseTime> phases;                         ///< in the order they ran
 };
 
 using ProgressSink = std::function<void(const Progress&)>;
