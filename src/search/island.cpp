@@ -36,6 +36,7 @@ void Island::sortPopulation() {
 
 void Island::initialize(const std::vector<model::Roster>& seeds, const std::vector<model::Roster>& starts, std::chrono::steady_clock::time_point deadline) {
   deadline_ = deadline;
+  refit_.setDeadline(deadline);
   const model::Problem& p = ev_.rules().problem();
   const int n = std::max(options_.population, 2);
   population_.assign(static_cast<size_t>(n), Individual{model::Roster(p.staffCount(), p.days), {}});

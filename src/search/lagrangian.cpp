@@ -85,8 +85,10 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
   ev.load(start);
   double bestPrimal = INFINITY, bestDual = -INFINITY, scale = 1.0;
   int sinceBetter = 0;
+  refit.setDeadline(deadline);
   for (int round = 0; round < rounds; ++round) {
     // 1 - Every row at the current prices; with cover priced, rows do not depend on each other.
+    const auto roundBegan = std::chrono::steady_clock::now();
     double rowsCost = 0;
     const bool priced = rewriteRows(ev, [&](StaffIdx s, DayIdx first, int length, eval::Move& move) {
       double cost = 0;
@@ -95,6 +97,10 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
       return found;
     }, order, deadline);
     if (!priced) break;  // out of time: this round's rows are unfinished
+    // A round's repair takes about kRepairPasses times its pricing: give up rather than start
+    // a repair that cannot end in time (the first round on a very large scenario).
+    const auto pricedAt = std::chrono::steady_clock::now();
+    if (result.rounds == 0 && pricedAt + (pricedAt - roundBegan) * kRepairPasses > deadline) break;
     rows.addRows(ev.roster());
 
     // 2 - The cover side: for each cell the count cheapest at its price.
@@ -134,6 +140,9 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
       scale /= 2;
       sinceBetter = 0;
     }
+    // Stop before a round that cannot end in time.
+    const auto now = std::chrono::steady_clock::now();
+    if (now + (now - roundBegan) > deadline) break;
     if (norm == 0) break;  // every cell settled: the prices cannot move
     const double step = scale * std::max(bestPrimal - dual, 0.0) / norm;
     if (step == 0) break;

@@ -3,6 +3,8 @@
 
 #include <algorithm>
 
+#include "search/stop_signal.hpp"
+
 namespace rotaweave::search {
 
 namespace {
@@ -175,8 +177,33 @@ bool RowRefit::cheapestRow(const eval::Evaluator& ev, StaffIdx s, DayIdx first, 
 
   labels_.clear();
   labels_.push_back(start);
+  exact_ = true;
+  // The most minutes the days from d on can still add: the window's best cells, then the
+  // unchanged days after it. A label below the minimum by more than that is dropped.
+  const bool needsMinutes = lim.minMinutes > 0;
+  if (needsMinutes) {
+    mostPaid_.assign(static_cast<size_t>(end - first + 1), 0);
+    for (DayIdx d = end; d < p_->days; ++d) {
+      const ShiftIdx sh = taskShift_[static_cast<size_t>(roster.at(s, d))];
+      mostPaid_.back() += sh == kNoShift ? 0 : shiftPaid_[static_cast<size_t>(sh)];
+    }
+    for (DayIdx d = end - 1; d >= first; --d) {
+      int most = 0;
+      for (const TaskIdx* t = e_->begin(s, d); t != e_->end(s, d); ++t) {
+        const ShiftIdx sh = taskShift_[static_cast<size_t>(*t)];
+        if (sh != kNoShift) most = std::max(most, shiftPaid_[static_cast<size_t>(sh)]);
+      }
+      mostPaid_[static_cast<size_t>(d - first)] = mostPaid_[static_cast<size_t>(d - first + 1)] + most;
+    }
+  }
+  // Labels a day keeps: the budget of extensions per day over the most options a day has.
+  int options = 1;
+  for (DayIdx d = first; d < end; ++d) options = std::max(options, e_->count(s, d));
+  const int beam = std::clamp(kExtensionsPerDay / options, std::min(kMinBeam, beam_), beam_);
   size_t layerBegin = 0;  // the previous day's labels are labels_[layerBegin, end)
   for (DayIdx d = first; d < end; ++d) {
+    if (std::chrono::steady_clock::now() >= deadline_ || stopRequested()) return false;
+    const int reachable = needsMinutes ? mostPaid_[static_cast<size_t>(d - first + 1)] : 0;
     const int from = static_cast<int>(layerBegin);
     const int to = static_cast<int>(labels_.size());
     const TaskIdx current = roster.at(s, d);
@@ -196,6 +223,7 @@ bool RowRefit::cheapestRow(const eval::Evaluator& ev, StaffIdx s, DayIdx first, 
       for (int i = from; i < to; ++i) {
         Label l = labels_[static_cast<size_t>(i)];
         if (!advance(l.state, d, sh)) continue;
+        if (needsMinutes && l.state.minutes + reachable < lim.minMinutes) continue;
         l.cost += cellCost;
         l.parent = i;
         l.task = *t;
@@ -210,9 +238,12 @@ bool RowRefit::cheapestRow(const eval::Evaluator& ev, StaffIdx s, DayIdx first, 
       if (a.key[1] != b.key[1]) return a.key[1] < b.key[1];
       return a.cost < b.cost;
     });
+    next_.erase(std::unique(next_.begin(), next_.end(), [](const Label& a, const Label& b) {
+      return a.key[0] == b.key[0] && a.key[1] == b.key[1];
+    }), next_.end());
+    if (static_cast<int>(next_.size()) > beam) trimToBeam(beam);
     layerBegin = labels_.size();
-    for (size_t i = 0; i < next_.size(); ++i)
-      if (i == 0 || next_[i].key[0] != next_[i - 1].key[0] || next_[i].key[1] != next_[i - 1].key[1]) labels_.push_back(next_[i]);
+    labels_.insert(labels_.end(), next_.begin(), next_.end());
   }
 
   int best = -1;
@@ -229,6 +260,35 @@ bool RowRefit::cheapestRow(const eval::Evaluator& ev, StaffIdx s, DayIdx first, 
     if (roster.at(s, d) != t) move.add(s, d, t);
   }
   return true;
+}
+
+void RowRefit::trimToBeam(int beam) {
+  exact_ = false;
+  const size_t n = next_.size();
+  int lo = next_[0].state.minutes, hi = lo;
+  for (const Label& l : next_) lo = std::min(lo, l.state.minutes), hi = std::max(hi, l.state.minutes);
+  // Order by cost (ties by state, so the outcome does not depend on the sort), then take the
+  // cheapest few of each stratum of minutes, then the cheapest of the rest.
+  std::sort(next_.begin(), next_.end(), [](const Label& a, const Label& b) {
+    if (a.cost != b.cost) return a.cost < b.cost;
+    if (a.key[0] != b.key[0]) return a.key[0] < b.key[0];
+    return a.key[1] < b.key[1];
+  });
+  keep_.assign(n, 0);
+  const int width = (hi - lo) / kMinuteStrata + 1;
+  const int perStratum = std::max(1, beam / (2 * kMinuteStrata));
+  int taken[kMinuteStrata] = {};
+  int kept = 0;
+  for (size_t i = 0; i < n && kept < beam; ++i) {
+    int& k = taken[(next_[i].state.minutes - lo) / width];
+    if (k < perStratum) ++k, keep_[i] = 1, ++kept;
+  }
+  for (size_t i = 0; i < n && kept < beam; ++i)
+    if (!keep_[i]) keep_[i] = 1, ++kept;
+  size_t out = 0;
+  for (size_t i = 0; i < n; ++i)
+    if (keep_[i]) next_[out++] = next_[i];
+  next_.resize(out);
 }
 
 }  // namespace rotaweave::search

@@ -8,7 +8,14 @@
 /// Everything else (soft row rules, rolling windows, fair share) it leaves to the evaluator,
 /// which scores the re-fitted row with every rule; so a re-fit is a proposal, never trusted.
 /// One instance per island: it keeps scratch buffers, so a re-fit allocates nothing after warm-up.
+///
+/// Work and memory per call are bounded: a day keeps at most a budgeted number of labels
+/// (the cheapest, spread over the hours worked so far so that rows able to reach a minimum of
+/// hours survive). A call that had to drop labels is not exact (`lastWasExact()`); its row is
+/// still one that keeps every modelled rule. Labels that can no longer reach a modelled minimum
+/// of hours are dropped first, which loses nothing.
 #pragma once
+#include <chrono>
 #include <cstdint>
 #include <vector>
 
@@ -40,6 +47,18 @@ class RowRefit {
   bool refitAtPrices(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const double* prices,
                      double hardWeight, eval::Move& move, double& cost);
 
+  /// Whether the last call kept every label (its row is then the cheapest there is).
+  bool lastWasExact() const { return exact_; }
+  /// Calls return false (no row) once `deadline` passes or a stop is requested.
+  void setDeadline(std::chrono::steady_clock::time_point deadline) { deadline_ = deadline; }
+  /// Most labels one day may keep, at least 1 (default kMaxBeam). A day keeps fewer where it
+  /// has many options, so that it extends at most about kExtensionsPerDay labels.
+  void setBeamWidth(int labels) { beam_ = labels > 0 ? labels : 1; }
+
+  static constexpr int kMaxBeam = 4096;    ///< keeps Instances 1-12 of the benchmark exact
+  static constexpr int kMinBeam = 64;
+  static constexpr int kExtensionsPerDay = 1 << 15;
+
  private:
   /// The hard row rules of one person that the search models; unset bounds are "none".
   struct Limits {
@@ -64,6 +83,12 @@ class RowRefit {
     State state;
   };
   static constexpr int kMaxCounts = 4;  ///< max-count rules modelled per person; more are left to the evaluator
+  /// Hours-worked strata the beam keeps labels from, so that rows reaching a minimum survive.
+  static constexpr int kMinuteStrata = 16;
+
+  /// Keeps at most `beam` of next_'s labels (sorted by state, one per state): the cheapest of
+  /// each stratum of minutes worked first, then the cheapest of the rest.
+  void trimToBeam(int beam);
 
   Limits limitsFor(const rules::RuleSet& rules, StaffIdx s) const;
   /// Advances `st` by one day with shift `sh`; false if a modelled rule is broken on the way.
@@ -82,6 +107,11 @@ class RowRefit {
   std::vector<ShiftIdx> taskShift_;
   std::vector<int> shiftPaid_;  ///< paid minutes per shift type
   std::vector<Label> labels_, next_;  ///< every day's labels, for the walk back; the day being built
+  std::vector<int> mostPaid_;         ///< scratch: the most minutes one day of the window can add
+  std::vector<std::uint8_t> keep_;    ///< scratch for trimToBeam
+  int beam_ = kMaxBeam;
+  bool exact_ = true;
+  std::chrono::steady_clock::time_point deadline_ = std::chrono::steady_clock::time_point::max();
 };
 
 }  // namespace rotaweave::search
