@@ -3,6 +3,7 @@
 
 #include <algorithm>
 #include <cassert>
+#include <utility>
 
 namespace rotaweave::eval {
 
@@ -11,37 +12,33 @@ namespace {
 /// tryMoveWithin stops early only this far (in 1/kCostScale units) above its limit: far more
 /// than the rounding error of summing penalties in doubles, far less than any penalty step.
 constexpr double kLimitMargin = 1.0;
+/// Anchor spans one rule may need for one row in one move: one per changed day, before and after.
+constexpr int kSpansPerRule = 2 * Move::kCapacity;
+
+/// Sorts spans and merges those that overlap or touch; returns how many remain.
+int mergeSpans(rules::AnchorSpan* spans, int n) {
+  if (n <= 1) return n;
+  std::sort(spans, spans + n, [](const rules::AnchorSpan& a, const rules::AnchorSpan& b) { return a.first < b.first; });
+  int out = 0;
+  for (int i = 1; i < n; ++i) {
+    if (spans[i].first <= spans[out].last + 1) spans[out].last = std::max(spans[out].last, spans[i].last);
+    else spans[++out] = spans[i];
+  }
+  return out + 1;
+}
 
 }  // namespace
 
 Evaluator::Evaluator(const rules::RuleSet& rules)
-    : rules_(&rules), p_(&rules.problem()), days_(p_->days), tasks_(p_->taskCount()), history_(p_->maxHistory) {
-  taskShift_.resize(static_cast<size_t>(tasks_));
-  for (int t = 0; t < tasks_; ++t) taskShift_[static_cast<size_t>(t)] = p_->tasks[static_cast<size_t>(t)].shift;
-  for (const auto& sh : p_->shifts) {
-    shiftStart_.push_back(sh.start);
-    shiftEnd_.push_back(sh.end);
-    shiftPaid_.push_back(sh.paidMinutes());
-  }
-  taskStart_.assign(static_cast<size_t>(tasks_), 0);
-  taskEnd_.assign(static_cast<size_t>(tasks_), 0);
-  taskPaid_.assign(static_cast<size_t>(tasks_), 0);
-  for (int t = 1; t < tasks_; ++t) {
-    const auto sh = static_cast<size_t>(taskShift_[static_cast<size_t>(t)]);
-    taskStart_[static_cast<size_t>(t)] = shiftStart_[sh];
-    taskEnd_[static_cast<size_t>(t)] = shiftEnd_[sh];
-    taskPaid_[static_cast<size_t>(t)] = shiftPaid_[sh];
-  }
-  const auto span = static_cast<size_t>(history_ + days_);
-  shiftBuf_.assign(span, kNoShift);
-  startBuf_.assign(span, 0);
-  endBuf_.assign(span, 0);
-  paidBuf_.assign(span, 0);
+    : rules_(&rules), p_(&rules.problem()), days_(p_->days), tasks_(p_->taskCount()), history_(p_->maxHistory),
+      span_(p_->maxHistory + p_->days), tables_(*p_), buffer_(*p_) {
   coverScratch_.resize(static_cast<size_t>(days_ * tasks_));
   keyStamp_.assign(static_cast<size_t>(days_ * tasks_), 0);
   fairScratch_.resize(p_->staff.size());
-  rowScratch_.resize(static_cast<size_t>(Move::kCapacity * days_));
-  tabulateCellRules();
+  spans_.resize(rules.maxSequenceRules() * kSpansPerRule);
+  asked_.resize(rules.maxSequenceRules());
+  askedStamp_.assign(rules.maxSequenceRules(), 0);
+  spanCount_.resize(rules.maxSequenceRules());
   const size_t fairRules = rules.fairShares().size();
   fairCount_.resize(fairRules);
   fairSum_.resize(fairRules);
@@ -52,55 +49,6 @@ Evaluator::Evaluator(const rules::RuleSet& rules)
   pendingFairSum_.resize(fairRules);
 }
 
-rules::RowView Evaluator::view(StaffIdx s, const TaskIdx* tasks) {
-  const auto& hist = p_->staff[static_cast<size_t>(s)].history;
-  const int h = static_cast<int>(hist.size());
-  std::copy(hist.begin(), hist.end(), shiftBuf_.begin() + (history_ - h));
-  ShiftIdx* shifts = shiftBuf_.data() + history_;
-  int* starts = startBuf_.data() + history_;
-  int* ends = endBuf_.data() + history_;
-  int* paid = paidBuf_.data() + history_;
-  for (int d = -h; d < 0; ++d) {
-    const ShiftIdx sh = shifts[d];
-    const bool on = sh != kNoShift;
-    starts[d] = d * kMinutesPerDay + (on ? shiftStart_[static_cast<size_t>(sh)] : 0);
-    ends[d] = d * kMinutesPerDay + (on ? shiftEnd_[static_cast<size_t>(sh)] : 0);
-    paid[d] = on ? shiftPaid_[static_cast<size_t>(sh)] : 0;
-  }
-  // Period days: straight table reads per task, no branches (off reads zeros).
-  for (int d = 0; d < days_; ++d) {
-    const auto t = static_cast<size_t>(tasks[d]);
-    shifts[d] = taskShift_[t];
-    starts[d] = d * kMinutesPerDay + taskStart_[t];
-    ends[d] = d * kMinutesPerDay + taskEnd_[t];
-    paid[d] = taskPaid_[t];
-  }
-  return rules::RowView{p_, s, tasks, shifts, starts, ends, paid, h, days_};
-}
-
-void Evaluator::tabulateCellRules() {
-  // Cell-local rules charge each cell on its own, so scoring a row that holds task t on every
-  // day and reading each breach's day gives the penalty of every (day, t) cell at once.
-  cellCost_.assign(static_cast<size_t>(p_->staffCount()) * static_cast<size_t>(days_) * static_cast<size_t>(tasks_), Tally{});
-  std::vector<TaskIdx> uniform(static_cast<size_t>(days_));
-  std::vector<rules::Breach> found;
-  for (StaffIdx s = 0; s < p_->staffCount(); ++s) {
-    if (rules_->cellRulesFor(s).empty()) continue;
-    for (TaskIdx t = 0; t < tasks_; ++t) {
-      std::fill(uniform.begin(), uniform.end(), t);
-      const rules::RowView row = view(s, uniform.data());
-      found.clear();
-      Tally ignored;
-      for (const rules::RowRule* rule : rules_->cellRulesFor(s)) rule->score(row, ignored, &found);
-      for (const auto& b : found) {
-        assert(b.days.size() == 1);
-        Tally& cell = cellCost_[(static_cast<size_t>(s) * static_cast<size_t>(days_) + static_cast<size_t>(b.days.front())) * static_cast<size_t>(tasks_) + static_cast<size_t>(t)];
-        (b.hard ? cell.hard : cell.soft) += b.penalty;
-      }
-    }
-  }
-}
-
 Tally Evaluator::cellSum(StaffIdx s, const TaskIdx* tasks) const {
   Tally t;
   for (DayIdx d = 0; d < days_; ++d) t += cellCost(s, d, tasks[d]);
@@ -109,7 +57,7 @@ Tally Evaluator::cellSum(StaffIdx s, const TaskIdx* tasks) const {
 
 Tally Evaluator::sequenceTally(const rules::RowView& row) const {
   Tally t;
-  for (const rules::RowRule* rule : rules_->sequenceRulesFor(row.staff)) rule->score(row, t, nullptr);
+  for (const rules::RowRule* rule : rules_->sequenceRulesFor(row.staff)) rule->scoreRow(row, t, nullptr);
   return t;
 }
 
@@ -132,12 +80,12 @@ Tally Evaluator::score(const model::Roster& roster) {
     long sum = 0;
     const auto& members = fair[r].members();
     for (size_t i = 0; i < members.size(); ++i) {
-      counts[i] = fair[r].countRow(view(members[i], roster.row(members[i])));
+      counts[i] = fair[r].countRow(buffer_.fill(members[i], roster.row(members[i])));
       sum += counts[i];
     }
     total += fairTally(r, counts.data(), sum);
   }
-  for (StaffIdx s = 0; s < roster.staff; ++s) total += rowTally(view(s, roster.row(s)));
+  for (StaffIdx s = 0; s < roster.staff; ++s) total += rowTally(buffer_.fill(s, roster.row(s)));
   countCover(roster, coverScratch_);
   for (DayIdx d = 0; d < days_; ++d)
     for (TaskIdx t = 1; t < tasks_; ++t)
@@ -148,9 +96,9 @@ Tally Evaluator::score(const model::Roster& roster) {
 std::vector<rules::Breach> Evaluator::explain(const model::Roster& roster) {
   std::vector<rules::Breach> out;
   for (StaffIdx s = 0; s < roster.staff; ++s) {
-    const rules::RowView row = view(s, roster.row(s));
+    const rules::RowView row = buffer_.fill(s, roster.row(s));
     Tally ignored;
-    for (const rules::RowRule* rule : rules_->rulesFor(s)) rule->score(row, ignored, &out);
+    for (const rules::RowRule* rule : rules_->rulesFor(s)) rule->scoreRow(row, ignored, &out);
   }
   countCover(roster, coverScratch_);
   for (DayIdx d = 0; d < days_; ++d)
@@ -161,7 +109,7 @@ std::vector<rules::Breach> Evaluator::explain(const model::Roster& roster) {
     std::vector<int> counts;
     long sum = 0;
     for (StaffIdx s : rule.members()) {
-      counts.push_back(rule.countRow(view(s, roster.row(s))));
+      counts.push_back(rule.countRow(buffer_.fill(s, roster.row(s))));
       sum += counts.back();
     }
     rule.explain(*p_, counts.data(), sum, out);
@@ -169,14 +117,72 @@ std::vector<rules::Breach> Evaluator::explain(const model::Roster& roster) {
   return out;
 }
 
+rules::RowView Evaluator::loadedView(StaffIdx s) const {
+  const size_t base = static_cast<size_t>(s) * static_cast<size_t>(span_) + static_cast<size_t>(history_);
+  return rules::RowView{p_, s, roster_.row(s), rowShift_.data() + base, rowStart_.data() + base, rowEnd_.data() + base,
+                        rowPaid_.data() + base, &rowTotals_[static_cast<size_t>(s)],
+                        static_cast<int>(p_->staff[static_cast<size_t>(s)].history.size()), days_};
+}
+
+void Evaluator::fillLoadedRow(StaffIdx s) {
+  const size_t base = static_cast<size_t>(s) * static_cast<size_t>(span_) + static_cast<size_t>(history_);
+  ShiftIdx* shifts = rowShift_.data() + base;
+  int *starts = rowStart_.data() + base, *ends = rowEnd_.data() + base, *paid = rowPaid_.data() + base;
+  const auto& hist = p_->staff[static_cast<size_t>(s)].history;
+  const int h = static_cast<int>(hist.size());
+  for (int i = 0; i < h; ++i) rules::setDay(tables_, shifts, starts, ends, paid, i - h, hist[static_cast<size_t>(i)]);
+  for (DayIdx d = 0; d < days_; ++d) rules::setDay(tables_, shifts, starts, ends, paid, d, kNoShift);
+  rules::RowTotals& totals = rowTotals_[static_cast<size_t>(s)];
+  const size_t shiftTypes = p_->shifts.size();
+  totals = rules::RowTotals{0, 0, 0, rowShiftCount_.data() + static_cast<size_t>(s) * shiftTypes};
+  std::fill_n(rowShiftCount_.begin() + static_cast<std::ptrdiff_t>(static_cast<size_t>(s) * shiftTypes), shiftTypes, 0);
+  std::fill_n(blockWorked_.begin() + static_cast<std::ptrdiff_t>(static_cast<size_t>(s) * static_cast<size_t>(p_->weekendCount)),
+              p_->weekendCount, std::uint16_t{0});
+  // Start from an empty row and add each day, so totals are built by the same code as moves.
+  for (DayIdx d = 0; d < days_; ++d) setLoadedDay(s, d, std::exchange(roster_.at(s, d), kOff));
+}
+
+void Evaluator::setLoadedDay(StaffIdx s, DayIdx d, TaskIdx t) {
+  TaskIdx& cell = roster_.at(s, d);
+  const TaskIdx old = cell;
+  if (old == t) return;
+  cell = t;
+  const ShiftIdx was = tables_.taskShift[static_cast<size_t>(old)], now = tables_.taskShift[static_cast<size_t>(t)];
+  const size_t base = static_cast<size_t>(s) * static_cast<size_t>(span_) + static_cast<size_t>(history_);
+  rules::setDay(tables_, rowShift_.data() + base, rowStart_.data() + base, rowEnd_.data() + base, rowPaid_.data() + base, d, now);
+  rules::RowTotals& totals = rowTotals_[static_cast<size_t>(s)];
+  totals.paidMinutes += tables_.taskPaid[static_cast<size_t>(t)] - tables_.taskPaid[static_cast<size_t>(old)];
+  int* counts = rowShiftCount_.data() + static_cast<size_t>(s) * p_->shifts.size();
+  if (was != kNoShift) --counts[was];
+  if (now != kNoShift) ++counts[now];
+  const int worked = (now != kNoShift) - (was != kNoShift);
+  if (worked == 0) return;
+  totals.workedDays += worked;
+  const int block = p_->weekendBlock[static_cast<size_t>(d)];
+  if (block < 0) return;
+  std::uint16_t& inBlock = blockWorked_[static_cast<size_t>(s) * static_cast<size_t>(p_->weekendCount) + static_cast<size_t>(block)];
+  const bool before = inBlock > 0;
+  inBlock = static_cast<std::uint16_t>(inBlock + worked);
+  totals.weekendsWorked += (inBlock > 0) - before;
+}
+
 void Evaluator::load(const model::Roster& roster) {
   roster_ = roster;
-  rowTally_.resize(static_cast<size_t>(roster.staff));
-  rowCells_.resize(static_cast<size_t>(roster.staff));
+  const auto staff = static_cast<size_t>(roster.staff);
+  rowShift_.resize(staff * static_cast<size_t>(span_));
+  rowStart_.resize(staff * static_cast<size_t>(span_));
+  rowEnd_.resize(staff * static_cast<size_t>(span_));
+  rowPaid_.resize(staff * static_cast<size_t>(span_));
+  rowShiftCount_.resize(staff * p_->shifts.size());
+  blockWorked_.resize(staff * static_cast<size_t>(p_->weekendCount));
+  rowTotals_.resize(staff);
+  rowTally_.resize(staff);
+  rowCells_.resize(staff);
   total_ = Tally{};
   for (StaffIdx s = 0; s < roster.staff; ++s) {
+    fillLoadedRow(s);
     rowCells_[static_cast<size_t>(s)] = cellSum(s, roster_.row(s));
-    rowTally_[static_cast<size_t>(s)] = rowCells_[static_cast<size_t>(s)] + sequenceTally(view(s, roster_.row(s)));
+    rowTally_[static_cast<size_t>(s)] = rowCells_[static_cast<size_t>(s)] + sequenceTally(loadedView(s));
     total_ += rowTally_[static_cast<size_t>(s)];
   }
   coverCount_.resize(static_cast<size_t>(days_ * tasks_));
@@ -192,12 +198,40 @@ void Evaluator::load(const model::Roster& roster) {
     fairCount_[r].resize(members.size());
     fairSum_[r] = 0;
     for (size_t i = 0; i < members.size(); ++i) {
-      fairCount_[r][i] = fair[r].countRow(view(members[i], roster_.row(members[i])));
+      fairCount_[r][i] = fair[r].countRow(loadedView(members[i]));
       fairSum_[r] += fairCount_[r][i];
     }
     fairTally_[r] = fairTally(r, fairCount_[r].data(), fairSum_[r]);
     total_ += fairTally_[r];
   }
+}
+
+int Evaluator::rulesToAsk(StaffIdx s, const CellChange* changes, int count) {
+  const rules::RuleObservers& observers = rules_->observersFor(s);
+  if (++askStamp_ == 0) std::fill(askedStamp_.begin(), askedStamp_.end(), 0), askStamp_ = 1;  // wrapped around
+  int n = 0;
+  auto ask = [&](const std::vector<std::uint32_t>& rules) {
+    for (const std::uint32_t k : rules)
+      if (askedStamp_[k] != askStamp_) askedStamp_[k] = askStamp_, asked_[static_cast<size_t>(n++)] = k;
+  };
+  bool worked = false, paid = false, times = false;
+  for (int j = 0; j < count; ++j) {
+    const auto was = static_cast<size_t>(roster_.at(s, changes[j].day)), now = static_cast<size_t>(changes[j].task);
+    const ShiftIdx from = tables_.taskShift[was], to = tables_.taskShift[now];
+    if (from == to) continue;  // another skill on the same shift: no sequence rule can tell
+    worked |= (from == kNoShift) != (to == kNoShift);
+    paid |= tables_.taskPaid[was] != tables_.taskPaid[now];
+    times |= tables_.taskStart[was] != tables_.taskStart[now] || tables_.taskEnd[was] != tables_.taskEnd[now] ||
+             (from == kNoShift) != (to == kNoShift);
+    if (from != kNoShift) ask(observers.byShift[static_cast<size_t>(from)]);
+    if (to != kNoShift) ask(observers.byShift[static_cast<size_t>(to)]);
+  }
+  if (worked) ask(observers.worked);
+  if (paid) ask(observers.paid);
+  if (times) ask(observers.times);
+  // In declaration order, so the bounded try meets rules in the same order every time.
+  std::sort(asked_.begin(), asked_.begin() + n);
+  return n;
 }
 
 Tally Evaluator::tryMove(const Move& move) {
@@ -211,7 +245,8 @@ bool Evaluator::tryMoveWithin(const Move& move, double hardWeight, double limit)
 }
 
 bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
-  pending_ = move;
+  pending_.size = move.size;
+  std::copy(move.begin(), move.end(), pending_.cells.begin());
   pendingReady_ = false;
   Tally delta;
   const auto& fair = rules_->fairShares();
@@ -253,7 +288,8 @@ bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
   shiftCounts(-1);
   delta += pendingCover_;
 
-  // 2 - Rows: penalty is additive per person, so only the touched rows are re-scored.
+  // 2 - Rows: penalty is additive per person, so only the touched rows are re-scored. Each
+  // row's changed cells are kept in day order.
   pendingRowCount_ = 0;
   for (const CellChange& c : move) {
     int i = 0;
@@ -263,11 +299,14 @@ bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
       ++pendingRowCount_;
       pr.staff = c.staff;
       pr.cells = rowCells_[static_cast<size_t>(c.staff)];
-      std::copy_n(roster_.row(c.staff), days_, rowScratch_.data() + i * days_);
+      pr.changes = 0;
     }
     // Cell-local rules: swap the old cell's tabulated penalty for the new one's.
     pr.cells += cellCost(c.staff, c.day, c.task) - cellCost(c.staff, c.day, roster_.at(c.staff, c.day));
-    rowScratch_[static_cast<size_t>(i * days_ + c.day)] = c.task;
+    CellChange* changes = &rowChanges_[static_cast<size_t>(i) * Move::kCapacity];
+    int at = pr.changes++;
+    for (; at > 0 && changes[at - 1].day > c.day; --at) changes[at] = changes[at - 1];
+    changes[at] = c;
   }
   // With a limit: the least the total can still come to. Sequence rules not scored yet add
   // nothing below zero, and fair share can at most fall to zero.
@@ -279,26 +318,84 @@ bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
     }
     for (const Tally& t : fairTally_) least -= t;
   }
+  auto over = [&] { return limit && least.weighed(limit->hardWeight) > limit->value + kLimitMargin; };
+
   for (int i = 0; i < pendingRowCount_; ++i) {
     PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
-    const rules::RowView row = view(pr.staff, rowScratch_.data() + i * days_);
-    Tally sequence;
-    for (const rules::RowRule* rule : rules_->sequenceRulesFor(pr.staff)) {
-      const Tally before = sequence;
-      rule->score(row, sequence, nullptr);
-      if (!limit) continue;
-      least += sequence - before;
-      // A margin far above rounding error, so only moves tryMove would reject stop here.
-      if (least.weighed(limit->hardWeight) > limit->value + kLimitMargin) return false;
+    const StaffIdx s = pr.staff;
+    const CellChange* changes = &rowChanges_[static_cast<size_t>(i) * Move::kCapacity];
+    const auto& sequence = rules_->sequenceRulesFor(s);
+    const int asked = rulesToAsk(s, changes, pr.changes);
+    const rules::RowView row = loadedView(s);  // sees every patch below
+    // Runs of changed days, each asked for its reach before and after the change. A reach
+    // reads only days outside its run, so where there is one run, asking once is enough.
+    auto forEachChangedRun = [&](auto&& onRun) {
+      for (int a = 0; a < pr.changes;) {
+        int b = a;
+        while (b + 1 < pr.changes && changes[b + 1].day == changes[b].day + 1) ++b;
+        onRun(changes[a].day, changes[b].day);
+        a = b + 1;
+      }
+    };
+    const bool oneRun = changes[pr.changes - 1].day - changes[0].day == pr.changes - 1;
+    auto addReach = [&](int q) {
+      const rules::RowRule& rule = *sequence[asked_[static_cast<size_t>(q)]];
+      rules::AnchorSpan* spans = &spans_[static_cast<size_t>(q) * kSpansPerRule];
+      forEachChangedRun([&](DayIdx first, DayIdx last) {
+        const rules::AnchorSpan reach = rule.reach(row, first, last);
+        if (!reach.empty()) spans[spanCount_[static_cast<size_t>(q)]++] = reach;
+      });
+    };
+    // (a) The anchors each rule's terms have now; (b) the change made in place, the anchors
+    // after it, and the new terms scored; (c) the change undone and the old terms scored.
+    for (int q = 0; q < asked; ++q) {
+      spanCount_[static_cast<size_t>(q)] = 0;
+      addReach(q);
     }
-    pr.tally = pr.cells + sequence;
-    delta += pr.tally - rowTally_[static_cast<size_t>(pr.staff)];
-    for (size_t r = 0; r < fair.size(); ++r) {
-      const int member = fair[r].memberIndex(pr.staff);
-      if (member < 0) continue;
-      const int count = fair[r].countRow(row);
-      if (count != fairCount_[r][static_cast<size_t>(member)])
-        pendingFair_[r][static_cast<size_t>(pendingFairCount_[r]++)] = PendingFair{member, count};
+    for (int j = 0; j < pr.changes; ++j) {
+      saved_[static_cast<size_t>(j)] = SavedDay{changes[j].day, roster_.at(s, changes[j].day)};
+      setLoadedDay(s, changes[j].day, changes[j].task);
+    }
+    Tally added;
+    bool rejected = false;
+    for (int q = 0; q < asked && !rejected; ++q) {
+      if (!oneRun) addReach(q);
+      rules::AnchorSpan* spans = &spans_[static_cast<size_t>(q) * kSpansPerRule];
+      int& n = spanCount_[static_cast<size_t>(q)];
+      n = mergeSpans(spans, n);
+      Tally part;
+      const rules::RowRule& rule = *sequence[asked_[static_cast<size_t>(q)]];
+      for (int j = 0; j < n; ++j) rule.score(row, spans[j], part, nullptr);
+      added += part;
+      if (limit) {
+        // A rule's new total is at least what its re-scored terms come to.
+        least += part;
+        rejected = over();
+      }
+    }
+    if (!rejected)
+      for (size_t r = 0; r < fair.size(); ++r) {
+        const int member = fair[r].memberIndex(s);
+        if (member < 0) continue;
+        const int count = fair[r].countRow(row);
+        if (count != fairCount_[r][static_cast<size_t>(member)])
+          pendingFair_[r][static_cast<size_t>(pendingFairCount_[r]++)] = PendingFair{member, count};
+      }
+    for (int j = pr.changes - 1; j >= 0; --j) setLoadedDay(s, saved_[static_cast<size_t>(j)].day, saved_[static_cast<size_t>(j)].task);
+    if (rejected) return false;
+    Tally removed;
+    for (int q = 0; q < asked; ++q) {
+      const rules::RowRule& rule = *sequence[asked_[static_cast<size_t>(q)]];
+      const rules::AnchorSpan* spans = &spans_[static_cast<size_t>(q) * kSpansPerRule];
+      for (int j = 0; j < spanCount_[static_cast<size_t>(q)]; ++j) rule.score(row, spans[j], removed, nullptr);
+    }
+    const Tally oldSequence = rowTally_[static_cast<size_t>(s)] - rowCells_[static_cast<size_t>(s)];
+    const Tally newSequence = oldSequence - removed + added;
+    pr.tally = pr.cells + newSequence;
+    delta += pr.tally - rowTally_[static_cast<size_t>(s)];
+    if (limit) {
+      least += newSequence - added;  // the terms no change reached
+      if (over()) return false;
     }
   }
 
@@ -329,10 +426,9 @@ void Evaluator::commit() {
   assert(pendingReady_ && "commit() needs a tryMove() or a tryMoveWithin() that returned true");
   pendingReady_ = false;
   for (const CellChange& c : pending_) {
-    TaskIdx& cell = roster_.at(c.staff, c.day);
-    --coverCount_[static_cast<size_t>(c.day * tasks_ + cell)];
+    --coverCount_[static_cast<size_t>(c.day * tasks_ + roster_.at(c.staff, c.day))];
     ++coverCount_[static_cast<size_t>(c.day * tasks_ + c.task)];
-    cell = c.task;
+    setLoadedDay(c.staff, c.day, c.task);
   }
   coverTotal_ += pendingCover_;
   for (int i = 0; i < pendingRowCount_; ++i) {

@@ -1,15 +1,19 @@
 /// @brief Full and incremental evaluation of rosters against a RuleSet.
 ///
 /// Full evaluation scores a whole roster. Incremental evaluation keeps a loaded roster with
-/// cached per-person row tallies, per (day, task) cover counts and fair-share counts, so that
-/// tryMove() re-scores only the rows and cover cells a move touches.
+/// each row's per-day arrays and totals, per-person row tallies, per (day, task) cover counts
+/// and fair-share counts. tryMove() re-scores only the cover cells a move touches and, in each
+/// touched row, only the terms of each rule that the changed days can reach (RowRule::reach),
+/// so a move costs about the same on a 28-day and a 364-day horizon.
 /// Thread safety: an Evaluator holds mutable scratch; give each thread (island) its own copy.
 /// The Problem and RuleSet it refers to are shared read-only.
 #pragma once
+#include <array>
 #include <vector>
 
 #include "eval/move.hpp"
 #include "model/roster.hpp"
+#include "rules/row_buffer.hpp"
 #include "rules/rule_set.hpp"
 
 namespace rotaweave::eval {
@@ -41,40 +45,40 @@ class Evaluator {
   int coverCount(DayIdx d, TaskIdx t) const { return coverCount_[static_cast<size_t>(d * tasks_ + t)]; }
 
   /// Penalty of the cell-local rules (requests, skills, absences, changes) if s takes t on day d.
-  const Tally& cellCost(StaffIdx s, DayIdx d, TaskIdx t) const {
-    return cellCost_[(static_cast<size_t>(s) * static_cast<size_t>(days_) + static_cast<size_t>(d)) * static_cast<size_t>(tasks_) + static_cast<size_t>(t)];
-  }
+  const Tally& cellCost(StaffIdx s, DayIdx d, TaskIdx t) const { return rules_->cellCost(s, d, t); }
 
   /// Penalty of person s's row rules if the row held `tasks` (one per period day): no cover or
   /// fair share, so rows can be priced one at a time. Does not touch the loaded state.
-  Tally rowScore(StaffIdx s, const TaskIdx* tasks) { return rowTally(view(s, tasks)); }
+  Tally rowScore(StaffIdx s, const TaskIdx* tasks) { return rowTally(buffer_.fill(s, tasks)); }
 
   const rules::RuleSet& rules() const { return *rules_; }
 
  private:
-  /// Fills the shift buffer for person s from `tasks` and returns the row view.
-  rules::RowView view(StaffIdx s, const TaskIdx* tasks);
   /// Penalty of a row: sequence rules scored on the row, cell-local rules read from the table.
   Tally rowTally(const rules::RowView& row) const { return cellSum(row.staff, row.tasks) + sequenceTally(row); }
+  Tally sequenceTally(const rules::RowView& row) const;
+  Tally cellSum(StaffIdx s, const TaskIdx* tasks) const;
+  Tally fairTally(size_t rule, const int* counts, long sum) const;
+  void countCover(const model::Roster& roster, std::vector<int>& counts) const;
+
   /// A cap on the weighed total after a move, for tryMoveWithin; none in tryMove.
   struct Limit { double hardWeight, value; };
   /// Scores the move into the pending state; false if `limit` is set and proved exceeded.
   bool evaluateMove(const Move& move, const Limit* limit);
-  Tally sequenceTally(const rules::RowView& row) const;
-  Tally cellSum(StaffIdx s, const TaskIdx* tasks) const;
-  void tabulateCellRules();
-  Tally fairTally(size_t rule, const int* counts, long sum) const;
-  void countCover(const model::Roster& roster, std::vector<int>& counts) const;
+
+  // The loaded rows, in RowBuffer's layout: staff * (maxHistory + days) per array.
+  rules::RowView loadedView(StaffIdx s) const;
+  void fillLoadedRow(StaffIdx s);
+  /// One day of a row as it was before a patch, to restore it.
+  struct SavedDay { DayIdx day; TaskIdx task; };
+  /// Writes a changed day into the loaded row (arrays, totals, roster cell).
+  void setLoadedDay(StaffIdx s, DayIdx d, TaskIdx t);
 
   const rules::RuleSet* rules_;
   const model::Problem* p_;
-  int days_, tasks_, history_;
-  std::vector<ShiftIdx> taskShift_;  ///< shift of each task, kNoShift for off
-  std::vector<int> shiftStart_, shiftEnd_, shiftPaid_;  ///< per shift type, for history days
-  std::vector<int> taskStart_, taskEnd_, taskPaid_;     ///< per task (0 = off: all zero)
-  std::vector<ShiftIdx> shiftBuf_;   ///< history + days
-  std::vector<int> startBuf_, endBuf_, paidBuf_;
-  std::vector<Tally> cellCost_;  ///< [(staff * days + day) * tasks + task]: cell-local rules' penalty
+  int days_, tasks_, history_, span_;
+  rules::ShiftTables tables_;
+  rules::RowBuffer buffer_;  ///< for whole rows that are not loaded
   std::vector<int> coverScratch_;
   std::vector<std::uint32_t> keyStamp_;  ///< per (day, task): the tryMove call that last touched it
   std::uint32_t stamp_ = 0;
@@ -82,6 +86,11 @@ class Evaluator {
 
   // Loaded state.
   model::Roster roster_;
+  std::vector<ShiftIdx> rowShift_;
+  std::vector<int> rowStart_, rowEnd_, rowPaid_;
+  std::vector<int> rowShiftCount_;         ///< staff * shifts
+  std::vector<std::uint16_t> blockWorked_;  ///< staff * weekends: worked days in each weekend
+  std::vector<rules::RowTotals> rowTotals_;
   std::vector<Tally> rowTally_;
   std::vector<Tally> rowCells_;  ///< the cell-local part of rowTally_
   std::vector<int> coverCount_;                 ///< [day * tasks + task]
@@ -92,10 +101,21 @@ class Evaluator {
 
   // Pending move (from tryMove).
   Move pending_;
-  struct PendingRow { StaffIdx staff; Tally tally; Tally cells; };
+  struct PendingRow {
+    StaffIdx staff;
+    Tally tally, cells;
+    int changes;  ///< its cells are rowChanges_[row * kCapacity, + changes), by day
+  };
   std::array<PendingRow, Move::kCapacity> pendingRows_{};
+  std::array<CellChange, Move::kCapacity * Move::kCapacity> rowChanges_{};
+  std::array<SavedDay, Move::kCapacity> saved_{};
+  /// Collects, into asked_, the sequence rules of person s that can see the row's changes.
+  int rulesToAsk(StaffIdx s, const CellChange* changes, int count);
+  std::vector<std::uint32_t> asked_, askedStamp_;
+  std::uint32_t askStamp_ = 0;
+  std::vector<rules::AnchorSpan> spans_;  ///< per rule asked, the anchors to re-score
+  std::vector<int> spanCount_;
   int pendingRowCount_ = 0;
-  std::vector<TaskIdx> rowScratch_;  ///< up to kCapacity rows of days each
   struct PendingFair { int member; int count; };
   std::vector<std::array<PendingFair, Move::kCapacity>> pendingFair_;
   std::vector<int> pendingFairCount_;

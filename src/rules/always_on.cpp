@@ -1,15 +1,23 @@
 /// @brief Rules that always apply: skills, absences, fixed cells, requests, and re-plan changes.
+#include <algorithm>
 #include <string>
 
 #include "rules/row_rules.hpp"
 
 namespace rotaweave::rules {
+namespace {
 
-void SkillRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+/// Cell rules charge each period day on its own, anchored on that day.
+DayIdx firstDay(AnchorSpan anchors) { return std::max<DayIdx>(anchors.first, 0); }
+DayIdx lastDay(const RowView& row, AnchorSpan anchors) { return std::min(anchors.last, row.days - 1); }
+
+}  // namespace
+
+void SkillRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const auto& p = *row.problem;
   const std::uint64_t mask = p.staff[static_cast<size_t>(row.staff)].skillMask;
   const model::Task* tasks = p.tasks.data();
-  for (DayIdx d = 0; d < row.days; ++d) {
+  for (DayIdx d = firstDay(anchors); d <= lastDay(row, anchors); ++d) {
     const SkillIdx skill = tasks[row.tasks[d]].skill;
     if (skill < 0 || ((mask >> skill) & 1U)) continue;  // off, or a held skill
     charge(row, tally, out, kOne, {d, d}, [&] {
@@ -19,10 +27,10 @@ void SkillRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out
   }
 }
 
-void AbsenceRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+void AbsenceRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const auto& p = *row.problem;
   const std::uint8_t* absent = &p.absent[p.cell(row.staff, 0)];
-  for (DayIdx d = 0; d < row.days; ++d) {
+  for (DayIdx d = firstDay(anchors); d <= lastDay(row, anchors); ++d) {
     if (!absent[d] || !row.worked(d)) continue;
     charge(row, tally, out, kOne, {d, d}, [&] {
       const std::string& reason = p.absenceReason[p.cell(row.staff, d)];
@@ -32,10 +40,10 @@ void AbsenceRule::score(const RowView& row, Tally& tally, std::vector<Breach>* o
   }
 }
 
-void FixedRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+void FixedRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const auto& p = *row.problem;
   const TaskIdx* fixed = &p.fixed[p.cell(row.staff, 0)];
-  for (DayIdx d = 0; d < row.days; ++d) {
+  for (DayIdx d = firstDay(anchors); d <= lastDay(row, anchors); ++d) {
     const TaskIdx want = fixed[d];
     if (want < 0 || want == row.tasks[d]) continue;
     charge(row, tally, out, kOne, {d, d}, [&] {
@@ -45,10 +53,11 @@ void FixedRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out
   }
 }
 
-void RequestRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+void RequestRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const auto& p = *row.problem;
   for (const auto& r : p.staff[static_cast<size_t>(row.staff)].requests) {
     const DayIdx d = r.day;
+    if (!anchors.contains(d)) continue;
     const ShiftIdx has = row.shift(d);
     using K = model::Request::Kind;
     const bool broken = r.kind == K::Off ? has != kNoShift : r.kind == K::Shift ? has != r.shift : has == r.shift;
@@ -63,11 +72,11 @@ void RequestRule::score(const RowView& row, Tally& tally, std::vector<Breach>* o
   }
 }
 
-void ChangesRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+void ChangesRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const auto& p = *row.problem;
   if (!p.published) return;
   const auto& published = *p.published;
-  for (DayIdx d = published.from; d < row.days; ++d) {
+  for (DayIdx d = std::max(published.from, firstDay(anchors)); d <= lastDay(row, anchors); ++d) {
     const TaskIdx was = published.cells[p.cell(row.staff, d)];
     if (was == row.tasks[d]) continue;
     const bool early = d < published.from + spec().earlyDays;

@@ -18,10 +18,7 @@ FairShareRule::FairShareRule(const model::Problem& problem, model::RuleSpec spec
 }
 
 int FairShareRule::countRow(const RowView& row) const {
-  if (spec_.weekends) return weekendsWorked(row);
-  int n = 0;
-  for (DayIdx d = 0; d < row.days; ++d) n += spec_.shift == kNoShift ? row.worked(d) : row.shift(d) == spec_.shift;
-  return n;
+  return spec_.weekends ? weekendsWorked(row) : row.count(spec_.shift);
 }
 
 Cost FairShareRule::amountOf(const int* counts, long sum) const {

@@ -1,8 +1,11 @@
 /// @brief The kind registry and RuleSet construction.
 #include "rules/rule_set.hpp"
 
+#include <algorithm>
+#include <cassert>
 #include <map>
 
+#include "rules/row_buffer.hpp"
 #include "rules/row_rules.hpp"
 
 namespace rotaweave::rules {
@@ -60,6 +63,48 @@ RuleSet::RuleSet(const model::Problem& problem)
         (rule->cellLocal() ? cell_ : sequence_)[static_cast<size_t>(s)].push_back(rule.get());
       }
     rowRules_.push_back(std::move(rule));
+  }
+  for (const auto& rules : sequence_) maxSequenceRules_ = std::max(maxSequenceRules_, rules.size());
+  observers_.resize(problem.staff.size());
+  for (size_t s = 0; s < problem.staff.size(); ++s) {
+    RuleObservers& o = observers_[s];
+    o.byShift.resize(problem.shifts.size());
+    for (std::uint32_t k = 0; k < sequence_[s].size(); ++k) {
+      const Observes what = sequence_[s][k]->observes();
+      if (what.worked) o.worked.push_back(k);
+      if (what.paid) o.paid.push_back(k);
+      if (what.times) o.times.push_back(k);
+      for (const ShiftIdx sh : what.shifts)
+        if (sh != kNoShift && (o.byShift[static_cast<size_t>(sh)].empty() || o.byShift[static_cast<size_t>(sh)].back() != k))
+          o.byShift[static_cast<size_t>(sh)].push_back(k);
+    }
+  }
+  tabulateCellRules();
+}
+
+void RuleSet::tabulateCellRules() {
+  // Cell-local rules charge each cell on its own, so scoring a row that holds task t on every
+  // day and reading each breach's day gives the penalty of every (day, t) cell at once.
+  const auto& p = *problem_;
+  const size_t days = static_cast<size_t>(p.days), tasks = p.tasks.size();
+  cellCost_.assign(p.staff.size() * days * tasks, Tally{});
+  RowBuffer buffer(p);
+  std::vector<TaskIdx> uniform(days);
+  std::vector<Breach> found;
+  for (StaffIdx s = 0; s < p.staffCount(); ++s) {
+    if (cell_[static_cast<size_t>(s)].empty()) continue;
+    for (TaskIdx t = 0; t < static_cast<TaskIdx>(tasks); ++t) {
+      std::fill(uniform.begin(), uniform.end(), t);
+      const RowView row = buffer.fill(s, uniform.data());
+      found.clear();
+      Tally ignored;
+      for (const RowRule* rule : cell_[static_cast<size_t>(s)]) rule->scoreRow(row, ignored, &found);
+      for (const auto& b : found) {
+        assert(b.days.size() == 1);
+        Tally& cell = cellCost_[(static_cast<size_t>(s) * days + static_cast<size_t>(b.days.front())) * tasks + static_cast<size_t>(t)];
+        (b.hard ? cell.hard : cell.soft) += b.penalty;
+      }
+    }
   }
 }
 

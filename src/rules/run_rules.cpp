@@ -1,4 +1,5 @@
 /// @brief Run-length rules: consecutive worked days, consecutive shifts, days off, recovery.
+#include <algorithm>
 #include <string>
 
 #include "rules/row_rules.hpp"
@@ -17,9 +18,20 @@ std::string shiftName(const RowView& row, ShiftIdx s) {
 
 }  // namespace
 
-void MaxConsecutiveDaysRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+Observes MaxConsecutiveDaysRule::observes() const { return Observes::workedDays(); }
+Observes MinConsecutiveDaysRule::observes() const { return Observes::workedDays(); }
+Observes MaxConsecutiveRule::observes() const { return Observes::shift(spec().shift); }
+Observes MinConsecutiveRule::observes() const { return Observes::shift(spec().shift); }
+Observes MinConsecutiveOffRule::observes() const { return Observes::workedDays(); }
+Observes DaysOffAfterRule::observes() const { return Observes::shift(spec().shift, true); }
+
+AnchorSpan MaxConsecutiveDaysRule::reach(const RowView& row, DayIdx first, DayIdx last) const {
+  return runReach(row, first, last, [&](DayIdx d) { return row.worked(d); });
+}
+
+void MaxConsecutiveDaysRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const int bound = spec().count;
-  forEachRun(row, [&](DayIdx d) { return row.worked(d); }, [&](DayIdx a, DayIdx b, bool, bool) {
+  forEachRun(row, anchors, [&](DayIdx d) { return row.worked(d); }, [&](DayIdx a, DayIdx b, bool, bool) {
     const int len = b - a + 1;
     if (len <= bound) return;
     charge(row, tally, out, (len - bound) * kOne, {a, b}, [&] {
@@ -28,9 +40,13 @@ void MaxConsecutiveDaysRule::score(const RowView& row, Tally& tally, std::vector
   });
 }
 
-void MinConsecutiveDaysRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+AnchorSpan MinConsecutiveDaysRule::reach(const RowView& row, DayIdx first, DayIdx last) const {
+  return runReach(row, first, last, [&](DayIdx d) { return row.worked(d); });
+}
+
+void MinConsecutiveDaysRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const int bound = spec().count;
-  forEachRun(row, [&](DayIdx d) { return row.worked(d); }, [&](DayIdx a, DayIdx b, bool atStart, bool atEnd) {
+  forEachRun(row, anchors, [&](DayIdx d) { return row.worked(d); }, [&](DayIdx a, DayIdx b, bool atStart, bool atEnd) {
     const int len = b - a + 1;
     if (len >= bound || atStart || atEnd) return;  // a run cut by the edge of what we know may go on
     charge(row, tally, out, (bound - len) * kOne, {a, b}, [&] {
@@ -39,10 +55,14 @@ void MinConsecutiveDaysRule::score(const RowView& row, Tally& tally, std::vector
   });
 }
 
-void MaxConsecutiveRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+AnchorSpan MaxConsecutiveRule::reach(const RowView& row, DayIdx first, DayIdx last) const {
+  return runReach(row, first, last, [&](DayIdx d) { return row.shift(d) == spec().shift; });
+}
+
+void MaxConsecutiveRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const int bound = spec().count;
   const ShiftIdx s = spec().shift;
-  forEachRun(row, [&](DayIdx d) { return row.shift(d) == s; }, [&](DayIdx a, DayIdx b, bool, bool) {
+  forEachRun(row, anchors, [&](DayIdx d) { return row.shift(d) == s; }, [&](DayIdx a, DayIdx b, bool, bool) {
     const int len = b - a + 1;
     if (len <= bound) return;
     charge(row, tally, out, (len - bound) * kOne, {a, b}, [&] {
@@ -52,10 +72,14 @@ void MaxConsecutiveRule::score(const RowView& row, Tally& tally, std::vector<Bre
   });
 }
 
-void MinConsecutiveRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+AnchorSpan MinConsecutiveRule::reach(const RowView& row, DayIdx first, DayIdx last) const {
+  return runReach(row, first, last, [&](DayIdx d) { return row.shift(d) == spec().shift; });
+}
+
+void MinConsecutiveRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const int bound = spec().count;
   const ShiftIdx s = spec().shift;
-  forEachRun(row, [&](DayIdx d) { return row.shift(d) == s; }, [&](DayIdx a, DayIdx b, bool atStart, bool atEnd) {
+  forEachRun(row, anchors, [&](DayIdx d) { return row.shift(d) == s; }, [&](DayIdx a, DayIdx b, bool atStart, bool atEnd) {
     const int len = b - a + 1;
     if (len >= bound || atStart || atEnd) return;
     charge(row, tally, out, (bound - len) * kOne, {a, b}, [&] {
@@ -65,9 +89,13 @@ void MinConsecutiveRule::score(const RowView& row, Tally& tally, std::vector<Bre
   });
 }
 
-void MinConsecutiveOffRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+AnchorSpan MinConsecutiveOffRule::reach(const RowView& row, DayIdx first, DayIdx last) const {
+  return runReach(row, first, last, [&](DayIdx d) { return !row.worked(d); });
+}
+
+void MinConsecutiveOffRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const int bound = spec().count;
-  forEachRun(row, [&](DayIdx d) { return !row.worked(d); }, [&](DayIdx a, DayIdx b, bool atStart, bool atEnd) {
+  forEachRun(row, anchors, [&](DayIdx d) { return !row.worked(d); }, [&](DayIdx a, DayIdx b, bool atStart, bool atEnd) {
     const int len = b - a + 1;
     if (len >= bound || atStart || atEnd) return;
     charge(row, tally, out, (bound - len) * kOne, {a, b}, [&] {
@@ -76,10 +104,16 @@ void MinConsecutiveOffRule::score(const RowView& row, Tally& tally, std::vector<
   });
 }
 
-void DaysOffAfterRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+AnchorSpan DaysOffAfterRule::reach(const RowView&, DayIdx first, DayIdx last) const {
+  // A series ending on day b is judged on days b to b + count + 1 at most.
+  return {first - spec().count - 1, last};
+}
+
+void DaysOffAfterRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const int need = spec().count;
   const ShiftIdx s = spec().shift;
-  for (DayIdx b = -row.history; b < row.days - 1; ++b) {
+  // Anchored on the last day of the series.
+  for (DayIdx b = std::max(anchors.first, row.firstKnown()); b < row.days - 1 && b <= anchors.last; ++b) {
     if (row.shift(b) != s || row.shift(b + 1) == s) continue;  // b ends a series of s
     DayIdx next = b + 1;
     while (next < row.days && !row.worked(next) && next - b - 1 < need) ++next;

@@ -6,14 +6,35 @@
 
 namespace rotaweave::rules {
 
-void MinRestRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+Observes MinRestRule::observes() const { return Observes::shiftTimes(); }
+
+Observes ForbidSequenceRule::observes() const {
+  Observes o;
+  for (const ShiftIdx sh : spec().sequence) {
+    if (sh == kNoShift) o.worked = true;
+    else o.shifts.push_back(sh);
+  }
+  return o;
+}
+
+AnchorSpan MinRestRule::reach(const RowView& row, DayIdx first, DayIdx last) const {
+  // A rest is anchored on its later shift: those in [first, last] and the first one after.
+  DayIdx next = last + 1;
+  while (next < row.days && !row.worked(next)) ++next;
+  return {first, std::min(next, row.days - 1)};
+}
+
+void MinRestRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const int need = spec().minutes;
-  DayIdx prev = kNoShift;
-  bool havePrev = false;
-  for (DayIdx d = -row.history; d < row.days; ++d) {
+  const DayIdx from = std::max<DayIdx>(anchors.first, 0), to = std::min(anchors.last, row.days - 1);
+  if (from > to) return;
+  // Rest runs from the end of the previous worked shift, however many days off lie between.
+  DayIdx prev = from - 1;
+  while (prev >= row.firstKnown() && !row.worked(prev)) --prev;
+  bool havePrev = prev >= row.firstKnown();
+  for (DayIdx d = from; d <= to; ++d) {
     if (!row.worked(d)) continue;
-    // Rest runs from the end of the previous worked shift, however many days off lie between.
-    if (havePrev && d >= 0) {
+    if (havePrev) {
       const int rest = row.startMinute(d) - row.endMinute(prev);
       if (rest < need)
         charge(row, tally, out, kOne, {prev, d, true}, [&] {
@@ -27,11 +48,17 @@ void MinRestRule::score(const RowView& row, Tally& tally, std::vector<Breach>* o
   }
 }
 
-void ForbidSequenceRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+AnchorSpan ForbidSequenceRule::reach(const RowView&, DayIdx first, DayIdx last) const {
+  // Anchored on the pattern's first day.
+  return {first - static_cast<DayIdx>(spec().sequence.size()) + 1, last};
+}
+
+void ForbidSequenceRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const ShiftIdx* seq = spec().sequence.data();
   const int len = static_cast<int>(spec().sequence.size());
   const ShiftIdx* sh = row.shifts;
-  for (DayIdx a = std::max(-row.history, 1 - len); a + len - 1 < row.days; ++a) {  // skip windows wholly in history
+  const DayIdx from = std::max({anchors.first, -row.history, 1 - len});  // skip windows wholly in history
+  for (DayIdx a = from; a + len - 1 < row.days && a <= anchors.last; ++a) {
     if (sh[a] != seq[0]) continue;
     int i = 1;
     while (i < len && sh[a + i] == seq[i]) ++i;

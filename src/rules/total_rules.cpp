@@ -7,51 +7,89 @@
 namespace rotaweave::rules {
 namespace {
 
-int paidOn(const RowView& row, DayIdx d) { return row.paid[d]; }
+/// The rolling windows of `w` days over the known days: window a covers days a to a + w - 1,
+/// for a from the first known day to max(first known, days - w) (one short window when fewer
+/// days than w are known). Only windows that reach the period are judged.
+class Windows {
+ public:
+  Windows(const RowView& row, int w) : row_(row), w_(w), first_(row.firstKnown()), lastStart_(std::max(first_, row.days - w)) {}
 
-int periodMinutes(const RowView& row) {
-  int total = 0;
-  for (DayIdx d = 0; d < row.days; ++d) total += paidOn(row, d);
-  return total;
-}
+  DayIdx first() const { return first_; }
+  DayIdx lastStart() const { return lastStart_; }
+  bool judged(DayIdx a) const { return a + w_ - 1 >= 0; }
+  int sum(DayIdx a) const {
+    int total = 0;
+    for (DayIdx d = a; d <= std::min(a + w_ - 1, row_.days - 1); ++d) total += row_.paid[d];
+    return total;
+  }
+  /// Sums of neighbouring windows (both must exist: they are then full).
+  int next(DayIdx a, int sumA) const { return sumA - row_.paid[a] + row_.paid[a + w_]; }
+  int previous(DayIdx a, int sumA) const { return sumA + row_.paid[a - 1] - row_.paid[a + w_ - 1]; }
 
-/// Slides a window of `w` days over the known days and merges adjacent breaching windows.
-/// excess(sum) > 0 marks a breach; each merged group is charged its largest excess.
-template <class Excess, class Charge>
-void slideWindows(const RowView& row, int w, Excess&& excess, Charge&& chargeGroup) {
-  const DayIdx firstKnown = -row.history;
-  const DayIdx lastStart = std::max(firstKnown, row.days - w);
-  int sum = 0;
-  for (DayIdx d = firstKnown; d < std::min(firstKnown + w, row.days); ++d) sum += paidOn(row, d);
-  DayIdx groupFirst = 0, groupLast = 0;
-  int groupExcess = 0, groupSum = 0;
-  bool open = false;
-  for (DayIdx a = firstKnown; a <= lastStart; ++a) {
-    if (a > firstKnown) sum += paidOn(row, a + w - 1) - paidOn(row, a - 1);
-    const bool counts = a + w - 1 >= 0;  // the window reaches the period
-    const int e = counts ? excess(sum) : 0;
-    if (e > 0) {
-      if (!open) groupFirst = a, groupExcess = 0, open = true;
-      groupLast = a;
-      if (e > groupExcess) groupExcess = e, groupSum = sum;
-    } else if (open) {
-      chargeGroup(groupFirst, groupLast, groupExcess, groupSum);
-      open = false;
+ private:
+  const RowView& row_;
+  int w_;
+  DayIdx first_, lastStart_;
+};
+
+/// Neighbouring windows that break the bound form one breach, charged its largest excess.
+/// Anchored on its first window. excess(sum) > 0 marks a breaking window.
+template <class Excess>
+AnchorSpan windowReach(const RowView& row, int w, DayIdx first, DayIdx last, Excess&& excess) {
+  const Windows win(row, w);
+  // Windows holding a changed day start in [first - w + 1, last]; the breach that holds the
+  // window just before them may reach back further, and one may start just after them.
+  DayIdx lo = std::max(first - w + 1, win.first());
+  if (lo > win.first() && lo - 1 <= win.lastStart()) {
+    DayIdx a = lo - 1;
+    int sum = win.sum(a);
+    while (win.judged(a) && excess(sum) > 0) {
+      lo = a;
+      if (a == win.first()) break;
+      sum = win.previous(a, sum);
+      --a;
     }
   }
-  if (open) chargeGroup(groupFirst, groupLast, groupExcess, groupSum);
+  return {lo, last + 1};
+}
+
+/// Charges each breach (run of breaking windows) whose first window starts in `anchors`.
+template <class Excess, class Charge>
+void scoreWindows(const RowView& row, int w, AnchorSpan anchors, Excess&& excess, Charge&& chargeGroup) {
+  const Windows win(row, w);
+  DayIdx a = std::max(anchors.first, win.first());
+  const DayIdx stop = std::min(anchors.last, win.lastStart());
+  if (a > stop) return;
+  int sum = win.sum(a);
+  auto breaks = [&](DayIdx at, int s) { return win.judged(at) && excess(s) > 0; };
+  auto advance = [&] {
+    if (a < win.lastStart()) sum = win.next(a, sum);
+    ++a;
+  };
+  // A breach that holds the window before the span is anchored before it: skip its windows.
+  if (a > win.first() && breaks(a - 1, win.previous(a, sum)))
+    while (a <= win.lastStart() && breaks(a, sum)) advance();
+  while (a <= stop) {
+    if (!breaks(a, sum)) {
+      advance();
+      continue;
+    }
+    const DayIdx groupFirst = a;
+    DayIdx groupLast = a;
+    int groupExcess = 0, groupSum = 0;
+    while (a <= win.lastStart() && breaks(a, sum)) {
+      groupLast = a;
+      if (const int e = excess(sum); e > groupExcess) groupExcess = e, groupSum = sum;
+      advance();
+    }
+    chargeGroup(groupFirst, groupLast, groupExcess, groupSum);
+  }
 }
 
 std::string windowText(const RowView& row, DayIdx first, DayIdx lastStart, int w) {
   const DayIdx end = std::min(lastStart + w - 1, row.days - 1);
   if (first == lastStart) return "the " + std::to_string(w) + " days from " + row.date(first) + " to " + row.date(end);
   return std::to_string(w) + "-day windows between " + row.date(first) + " and " + row.date(end);
-}
-
-int countShifts(const RowView& row, ShiftIdx s) {
-  int n = 0;
-  for (DayIdx d = 0; d < row.days; ++d) n += s == kNoShift ? row.worked(d) : row.shift(d) == s;
-  return n;
 }
 
 std::string shiftsText(const RowView& row, ShiftIdx s, int n) {
@@ -61,18 +99,29 @@ std::string shiftsText(const RowView& row, ShiftIdx s, int n) {
 
 }  // namespace
 
-void MaxHoursRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+Observes MaxHoursRule::observes() const { return Observes::paidMinutes(); }
+Observes MinHoursRule::observes() const { return Observes::paidMinutes(); }
+Observes MaxCountRule::observes() const { return Observes::shift(spec().shift); }
+Observes MinCountRule::observes() const { return Observes::shift(spec().shift); }
+
+AnchorSpan MaxHoursRule::reach(const RowView& row, DayIdx first, DayIdx last) const {
+  const int bound = spec().minutes;
+  if (spec().windowDays == 0) return kPeriodReach;
+  return windowReach(row, spec().windowDays, first, last, [&](int sum) { return sum - bound; });
+}
+
+void MaxHoursRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const int bound = spec().minutes;
   const int w = spec().windowDays;
   if (w == 0) {
-    const int total = periodMinutes(row);
-    if (total > bound)
+    const int total = row.totals->paidMinutes;
+    if (anchors.contains(kPeriodAnchor) && total > bound)
       charge(row, tally, out, total - bound, {0, row.days - 1}, [&] {
         return row.personId() + ": " + hoursText(total) + " h in the period; at most " + boundText(bound) + " h allowed";
       });
     return;
   }
-  slideWindows(row, w, [&](int sum) { return sum - bound; }, [&](DayIdx a, DayIdx b, int excess, int sum) {
+  scoreWindows(row, w, anchors, [&](int sum) { return sum - bound; }, [&](DayIdx a, DayIdx b, int excess, int sum) {
     charge(row, tally, out, excess, {a, b + w - 1}, [&] {
       return row.personId() + ": " + hoursText(sum) + " h in " + windowText(row, a, b, w) + "; at most " +
              boundText(bound) + " h allowed";
@@ -80,19 +129,26 @@ void MaxHoursRule::score(const RowView& row, Tally& tally, std::vector<Breach>* 
   });
 }
 
-void MinHoursRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
+AnchorSpan MinHoursRule::reach(const RowView& row, DayIdx first, DayIdx last) const {
+  const int bound = spec().minutes;
+  if (spec().windowDays == 0) return kPeriodReach;
+  if (row.history + row.days < spec().windowDays) return kNoAnchors;  // no full window is known
+  return windowReach(row, spec().windowDays, first, last, [&](int sum) { return bound - sum; });
+}
+
+void MinHoursRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
   const int bound = spec().minutes;
   const int w = spec().windowDays;
   if (w == 0) {
-    const int total = periodMinutes(row);
-    if (total < bound)
+    const int total = row.totals->paidMinutes;
+    if (anchors.contains(kPeriodAnchor) && total < bound)
       charge(row, tally, out, bound - total, {0, row.days - 1}, [&] {
         return row.personId() + ": " + hoursText(total) + " h in the period; at least " + boundText(bound) + " h needed";
       });
     return;
   }
   if (row.history + row.days < w) return;  // no full window is known
-  slideWindows(row, w, [&](int sum) { return bound - sum; }, [&](DayIdx a, DayIdx b, int shortfall, int sum) {
+  scoreWindows(row, w, anchors, [&](int sum) { return bound - sum; }, [&](DayIdx a, DayIdx b, int shortfall, int sum) {
     charge(row, tally, out, shortfall, {a, b + w - 1}, [&] {
       return row.personId() + ": " + hoursText(sum) + " h in " + windowText(row, a, b, w) + "; at least " +
              boundText(bound) + " h needed";
@@ -100,18 +156,22 @@ void MinHoursRule::score(const RowView& row, Tally& tally, std::vector<Breach>* 
   });
 }
 
-void MaxCountRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
-  const int n = countShifts(row, spec().shift);
-  if (n <= spec().count) return;
+AnchorSpan MaxCountRule::reach(const RowView&, DayIdx, DayIdx) const { return kPeriodReach; }
+
+void MaxCountRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
+  const int n = row.count(spec().shift);
+  if (!anchors.contains(kPeriodAnchor) || n <= spec().count) return;
   charge(row, tally, out, (n - spec().count) * kOne, {0, row.days - 1}, [&] {
     return row.personId() + ": " + shiftsText(row, spec().shift, n) + " in the period; at most " +
            std::to_string(spec().count) + " allowed";
   });
 }
 
-void MinCountRule::score(const RowView& row, Tally& tally, std::vector<Breach>* out) const {
-  const int n = countShifts(row, spec().shift);
-  if (n >= spec().count) return;
+AnchorSpan MinCountRule::reach(const RowView&, DayIdx, DayIdx) const { return kPeriodReach; }
+
+void MinCountRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, std::vector<Breach>* out) const {
+  const int n = row.count(spec().shift);
+  if (!anchors.contains(kPeriodAnchor) || n >= spec().count) return;
   charge(row, tally, out, (spec().count - n) * kOne, {0, row.days - 1}, [&] {
     return row.personId() + ": " + shiftsText(row, spec().shift, n) + " in the period; at least " +
            std::to_string(spec().count) + " needed";

@@ -88,6 +88,90 @@ TEST_SUITE("eval") {
     for (std::uint64_t seed = 1; seed <= 5; ++seed) checkDeltas(p, 3000, seed);
   }
 
+  TEST_CASE("incremental and full scores agree on a long horizon with overlapping shifts") {
+    // 364 days; X (00:30-04:00) lies inside the night after N, M is a long overnight shift, so
+    // rests are negative and a shift can end before the one before it; history of different
+    // lengths per person; windows, weekly-rest blocks and weekends of several sizes.
+    const std::string extra = "  - {id: X, start: \"00:30\", end: \"04:00\"}\n"
+                              "  - {id: M, start: \"16:00\", end: \"04:00\", break_minutes: 45}\n"
+                              "  - {id: D, start: \"08:00\", end: \"20:00\", break_minutes: 60}\n";
+    const auto p = test::loadYaml(test::header(364, extra) +
+                                  "weekend: [fri, sat, sun]\n"
+                                  "contracts:\n  ft: {hours: {min: 1500, max: 1700}}\n"
+                                  "staff:\n"
+                                  "  - {id: a, contract: ft, skills: [rn], history: [N, N, off, M, X, N, N, N, E, L, off, off, D]}\n"
+                                  "  - {id: b, contract: ft, skills: [rn], history: [X], absences: [{from: 2027-05-08, to: 2027-05-30}]}\n"
+                                  "  - {id: c, skills: [rn], history: [off, M]}\n"
+                                  "  - {id: d, skills: [rn]}\n"
+                                  "  - {id: e, skills: [rn], history: [D, D, D, D, D, D]}\n"
+                                  "demand:\n  - {shift: E, skill: rn, min: 1, target: 2, max: 2}\n  - {shift: N, skill: rn, min: 1}\n"
+                                  "  - {shift: D, skill: rn, min: 1, days: [sat, sun], max: 1}\n"
+                                  "rules:\n  list:\n"
+                                  "    - {kind: min-rest, hours: 11}\n"
+                                  "    - {kind: forbid-sequence, sequence: [N, off, E]}\n"
+                                  "    - {kind: forbid-sequence, sequence: [M, X]}\n"
+                                  "    - {kind: min-consecutive-days, days: 3}\n"
+                                  "    - {kind: max-consecutive-days, days: 5}\n"
+                                  "    - {kind: min-consecutive, shift: N, count: 2}\n"
+                                  "    - {kind: max-consecutive, shift: D, count: 2, severity: soft}\n"
+                                  "    - {kind: min-consecutive-off, days: 2, severity: soft}\n"
+                                  "    - {kind: days-off-after, shift: N, days: 2}\n"
+                                  "    - {kind: days-off-after, shift: M, days: 1, severity: soft}\n"
+                                  "    - {kind: min-hours, hours: 20, window_days: 7}\n"
+                                  "    - {kind: max-hours, hours: 48, window_days: 7}\n"
+                                  "    - {kind: max-hours, hours: 20, window_days: 3, severity: soft}\n"
+                                  "    - {kind: min-hours, hours: 120, window_days: 30, severity: soft}\n"
+                                  "    - {kind: max-hours, hours: 1200, window_days: 200}\n"
+                                  "    - {kind: min-count, shift: E, count: 40}\n"
+                                  "    - {kind: max-count, shift: N, count: 50}\n"
+                                  "    - {kind: max-count, count: 250}\n"
+                                  "    - {kind: max-weekends, count: 30}\n"
+                                  "    - {kind: complete-weekends, severity: soft}\n"
+                                  "    - {kind: weekly-rest, hours: 35}\n"
+                                  "    - {kind: weekly-rest, hours: 20, days: 3, severity: soft}\n"
+                                  "    - {kind: fair-share, shift: N}\n"
+                                  "    - {kind: fair-share, weekends: true, weight: 2}\n");
+    for (std::uint64_t seed = 1; seed <= 3; ++seed) checkDeltas(p, 3000, seed);
+  }
+
+  TEST_CASE("incremental and full scores agree on short periods and long history") {
+    // Fewer known days than a rolling window, and history longer than the period.
+    const auto p = test::loadYaml(test::header(5) +
+                                  "staff:\n"
+                                  "  - {id: a, skills: [rn], history: [N, N, off, E, E, E, L, off, N]}\n"
+                                  "  - {id: b, skills: [rn]}\n"
+                                  "  - {id: c, skills: [rn], history: [L]}\n"
+                                  "demand:\n  - {shift: E, skill: rn, min: 1}\n"
+                                  "rules:\n  list:\n"
+                                  "    - {kind: min-hours, hours: 30, window_days: 7}\n"
+                                  "    - {kind: max-hours, hours: 16, window_days: 7}\n"
+                                  "    - {kind: max-hours, hours: 8, window_days: 2, severity: soft}\n"
+                                  "    - {kind: weekly-rest, hours: 24, days: 2}\n"
+                                  "    - {kind: min-consecutive-off, days: 3}\n"
+                                  "    - {kind: days-off-after, shift: N, days: 3}\n"
+                                  "    - {kind: complete-weekends}\n");
+    for (std::uint64_t seed = 1; seed <= 5; ++seed) checkDeltas(p, 2000, seed);
+  }
+
+  TEST_CASE("a change reaches the rest that follows a shift it encloses") {
+    // N on day 3 ends at 06:00 on day 4, after X on day 4 (00:30-04:00) ends: taking N away
+    // moves the start of the free time before E on day 10 by two hours, which decides the
+    // weekly rest of the third 3-day block although the next worked day is inside the second.
+    const auto p = test::loadYaml(test::header(12, "  - {id: X, start: \"00:30\", end: \"04:00\"}\n") +
+                                  "staff:\n  - {id: a, skills: [rn]}\n"
+                                  "rules:\n  list:\n    - {kind: weekly-rest, hours: 146, days: 3}\n");
+    const rules::RuleSet set(p);
+    eval::Evaluator inc(set), full(set);
+    const model::Roster before = test::rosterFrom(p, {"E . N X . . . . . E . ."});
+    inc.load(before);
+    eval::Move move;
+    move.add(0, 2, kOff);
+    model::Roster after = before;
+    after.at(0, 2) = kOff;
+    CHECK(inc.tryMove(move) == full.score(after));
+    CHECK_FALSE(full.score(after) == full.score(before));
+  }
+
   TEST_CASE("incremental and full scores agree on the bundled samples") {
     namespace fs = std::filesystem;
     const fs::path samples = fs::path(ROTAWEAVE_SOURCE_DIR) / "samples";
