@@ -2,7 +2,12 @@
 #include "search/lagrangian.hpp"
 
 #include <algorithm>
+#include <atomic>
 #include <cmath>
+
+#ifdef _OPENMP
+#include <omp.h>
+#endif
 
 #include "search/pool_combination.hpp"
 #include "search/priced_cover.hpp"
@@ -28,22 +33,39 @@ constexpr double kCombineTimeShare = 1.0;
 /// combining found no roster there that one generation of the islands did not beat.
 constexpr double kWorthwhileGap = 0.1;
 
-/// Rewrites every row as `choose(s, first, length, move)` proposes, window by window; false,
-/// with the rows only partly rewritten, if `deadline` passes or a stop is requested on the way.
-template <class Choose>
-bool rewriteRows(eval::Evaluator& ev, Choose&& choose, const std::vector<StaffIdx>& order,
-                 std::chrono::steady_clock::time_point deadline) {
-  const int days = ev.rules().problem().days;
-  eval::Move move;
-  for (const StaffIdx s : order) {
-    if (std::chrono::steady_clock::now() >= deadline || stopRequested()) return false;
-    for (DayIdx first = 0; first < days; first += RowRefit::kMaxWindow)
-      if (choose(s, first, std::min(RowRefit::kMaxWindow, days - first), move)) {
-        ev.tryMove(move);
-        ev.commit();
-      }
+/// People re-fitted at once in a repair pass, each against the cover as it was before their
+/// group: one at a time (exactly sequential) up to 31 people, so small scenarios keep the
+/// rosters they were measured with, then a sixteenth of the people. Fixed by the scenario
+/// alone, so the result does not depend on the thread count.
+int repairGroup(int people) { return std::max(1, people / 16); }
+
+/// Runs `body(i, refit)` for every i in [0, count), on up to refits.size() threads, each
+/// thread with its own re-fitter. Returns false if the deadline passed or a stop was
+/// requested before every person was done.
+template <class Body>
+bool forEach(std::vector<RowRefit>& refits, int count, std::chrono::steady_clock::time_point deadline, Body&& body) {
+  std::atomic<bool> late{false};
+  const int threads = std::min(static_cast<int>(refits.size()), count);
+#pragma omp parallel for num_threads(std::max(threads, 1)) schedule(dynamic, 1)
+  for (int i = 0; i < count; ++i) {
+    if (late.load(std::memory_order_relaxed)) continue;
+    if (std::chrono::steady_clock::now() >= deadline || stopRequested()) {
+      late = true;
+      continue;
+    }
+#ifdef _OPENMP
+    RowRefit& refit = refits[static_cast<size_t>(omp_get_thread_num())];
+#else
+    RowRefit& refit = refits.front();
+#endif
+    body(i, refit);
   }
-  return true;
+  return !late;
+}
+
+/// Writes a re-fitted window of row s into `roster`.
+void writeRow(model::Roster& roster, const eval::Move& move) {
+  for (const auto& c : move) roster.at(c.staff, c.day) = c.task;
 }
 
 /// Keeps the best `keep` distinct rosters seen, best first.
@@ -59,7 +81,7 @@ void remember(std::vector<std::pair<double, model::Roster>>& kept, int keep, dou
 
 }  // namespace
 
-LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, RowRefit& refit, Rng& rng, int rounds,
+LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, std::vector<RowRefit>& refits, Rng& rng, int rounds,
                                   int keep, double hardWeight, std::chrono::steady_clock::time_point deadline) {
   LagrangianResult result;
   const model::Problem& p = ev.rules().problem();
@@ -78,25 +100,40 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
   std::vector<std::pair<double, model::Roster>> kept;  // (weighed cost, roster), best first
   RowPool rows(people, p.days, kMaxPoolCells);
   const auto began = std::chrono::steady_clock::now();
+  for (RowRefit& refit : refits) refit.setDeadline(deadline);
+  const int group = repairGroup(people);
+  std::vector<double> rowCost(static_cast<size_t>(people), 0.0);
+  std::vector<eval::Move> groupMoves(static_cast<size_t>(group) * static_cast<size_t>((p.days + RowRefit::kMaxWindow - 1) / RowRefit::kMaxWindow));
 
   model::Roster start(people, p.days);  // each cell's first option: off unless the cell is fixed
   for (StaffIdx s = 0; s < people; ++s)
     for (DayIdx d = 0; d < p.days; ++d) start.at(s, d) = *e.begin(s, d);
   ev.load(start);
+  model::Roster working = start;  // rows being re-fitted; each thread writes only its own
   double bestPrimal = INFINITY, bestDual = -INFINITY, scale = 1.0;
   int sinceBetter = 0;
-  refit.setDeadline(deadline);
   for (int round = 0; round < rounds; ++round) {
-    // 1 - Every row at the current prices; with cover priced, rows do not depend on each other.
+    // 1 - Every row at the current prices; with cover priced, rows do not depend on each
+    // other, so they are re-fitted at once and the roster reloaded.
     const auto roundBegan = std::chrono::steady_clock::now();
-    double rowsCost = 0;
-    const bool priced = rewriteRows(ev, [&](StaffIdx s, DayIdx first, int length, eval::Move& move) {
-      double cost = 0;
-      const bool found = refit.refitAtPrices(ev, s, first, length, price.data(), hardWeight, move, cost);
-      rowsCost += found ? cost : 0;
-      return found;
-    }, order, deadline);
+    working = ev.roster();
+    const bool priced = forEach(refits, people, deadline, [&](int i, RowRefit& refit) {
+      const StaffIdx s = order[static_cast<size_t>(i)];
+      eval::Move move;
+      double& total = rowCost[static_cast<size_t>(s)];
+      total = 0;
+      for (DayIdx first = 0; first < p.days; first += RowRefit::kMaxWindow) {
+        double cost = 0;
+        if (!refit.refitAtPrices(working, s, first, std::min(RowRefit::kMaxWindow, p.days - first), price.data(), hardWeight, move, cost))
+          continue;
+        total += cost;
+        writeRow(working, move);
+      }
+    });
     if (!priced) break;  // out of time: this round's rows are unfinished
+    double rowsCost = 0;
+    for (const StaffIdx s : order) rowsCost += rowCost[static_cast<size_t>(s)];  // in a fixed order: the same sum on any thread count
+    ev.load(working);
     // A round's repair takes about kRepairPasses times its pricing: give up rather than start
     // a repair that cannot end in time (the first round on a very large scenario).
     const auto pricedAt = std::chrono::steady_clock::now();
@@ -117,13 +154,33 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, Row
       }
     const double dual = rowsCost + coverSide;
 
-    // 3 - Repair: re-fit rows against the real cover, in a random order each pass. A repair cut
-    // short by the deadline still gives a whole roster.
+    // 3 - Repair: re-fit rows against the real cover, in a random order each pass, a group of
+    // people at a time (each against the cover before the group). A repair cut short by the
+    // deadline still gives a whole roster.
     for (int pass = 0; pass < kRepairPasses; ++pass) {
       rng.shuffle(order);
-      rewriteRows(ev, [&](StaffIdx s, DayIdx first, int length, eval::Move& move) {
-        return refit.refit(ev, s, first, length, nullptr, hardWeight, move);
-      }, order, deadline);
+      working = ev.roster();
+      for (int from = 0; from < people; from += group) {
+        const int count = std::min(group, people - from);
+        const int windows = static_cast<int>(groupMoves.size()) / group;
+        if (!forEach(refits, count, deadline, [&](int slot, RowRefit& refit) {
+              const StaffIdx s = order[static_cast<size_t>(from + slot)];
+              for (int w = 0; w < windows; ++w) {
+                eval::Move& move = groupMoves[static_cast<size_t>(slot * windows + w)];
+                move.clear();
+                const DayIdx first = w * RowRefit::kMaxWindow;
+                if (first < p.days && refit.refit(working, ev, s, first, std::min(RowRefit::kMaxWindow, p.days - first), nullptr, hardWeight, move))
+                  writeRow(working, move);
+              }
+            }))
+          break;
+        for (const eval::Move& move : groupMoves)
+          if (move.size > 0) {
+            ev.tryMove(move);
+            ev.commit();
+          }
+        for (eval::Move& move : groupMoves) move.clear();
+      }
     }
     rows.addRows(ev.roster());
     result.rounds = round + 1;

@@ -29,8 +29,9 @@ struct LagrangianResult {
 
 /// Runs up to `rounds` subgradient rounds (fewer past `deadline`) and keeps the `keep` best
 /// distinct repaired rosters. `hardWeight` weighs hard cost against soft, as in local search.
-/// Uses `ev` and `refit` as scratch; deterministic for a given `rng` state.
-LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, RowRefit& refit, Rng& rng, int rounds,
-                                  int keep, double hardWeight, std::chrono::steady_clock::time_point deadline);
+/// Rows are re-fitted on as many threads as `refits` holds re-fitters (one each). Uses `ev`
+/// and `refits` as scratch; deterministic for a given `rng` state, whatever the thread count.
+LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, std::vector<RowRefit>& refits, Rng& rng,
+                                  int rounds, int keep, double hardWeight, std::chrono::steady_clock::time_point deadline);
 
 }  // namespace rotaweave::search

@@ -13,7 +13,7 @@ bool applies(const model::RuleSpec& r, StaffIdx s) { return r.hard && r.inScope[
 
 }  // namespace
 
-RowRefit::RowRefit(const rules::RuleSet& rules, const Eligibility& e) : p_(&rules.problem()), e_(&e) {
+RowRefit::RowRefit(const rules::RuleSet& rules, const Eligibility& e) : rules_(&rules), p_(&rules.problem()), e_(&e) {
   for (const model::Task& t : p_->tasks) taskShift_.push_back(t.shift);
   for (const model::ShiftType& shift : p_->shifts) shiftPaid_.push_back(shift.paidMinutes());
   for (StaffIdx s = 0; s < p_->staffCount(); ++s) limits_.push_back(limitsFor(rules, s));
@@ -137,23 +137,22 @@ void RowRefit::packKey(Label& label) {
                  static_cast<std::uint64_t>(st.counts[3]);
 }
 
-bool RowRefit::refit(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const TaskIdx* needs, double hardWeight,
-                     eval::Move& move) {
+bool RowRefit::refit(const model::Roster& roster, const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length,
+                     const TaskIdx* needs, double hardWeight, eval::Move& move) {
   double cost = 0;
-  return cheapestRow(ev, s, first, length, needs, nullptr, hardWeight, move, cost);
+  return cheapestRow(roster, &ev, s, first, length, needs, nullptr, hardWeight, move, cost);
 }
 
-bool RowRefit::refitAtPrices(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const double* prices,
+bool RowRefit::refitAtPrices(const model::Roster& roster, StaffIdx s, DayIdx first, int length, const double* prices,
                              double hardWeight, eval::Move& move, double& cost) {
-  return cheapestRow(ev, s, first, length, nullptr, prices, hardWeight, move, cost);
+  return cheapestRow(roster, nullptr, s, first, length, nullptr, prices, hardWeight, move, cost);
 }
 
-bool RowRefit::cheapestRow(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const TaskIdx* needs,
-                           const double* prices, double hardWeight, eval::Move& move, double& cost) {
+bool RowRefit::cheapestRow(const model::Roster& roster, const eval::Evaluator* ev, StaffIdx s, DayIdx first, int length,
+                           const TaskIdx* needs, const double* prices, double hardWeight, eval::Move& move, double& cost) {
   move.clear();
-  const model::Roster& roster = ev.roster();
   const Limits& lim = limits_[static_cast<size_t>(s)];
-  const rules::CoverRule& cover = ev.rules().cover();
+  const rules::CoverRule& cover = rules_->cover();
   const DayIdx end = std::min(first + std::min(length, kMaxWindow), p_->days);
   if (end <= first) return false;
 
@@ -206,17 +205,17 @@ bool RowRefit::cheapestRow(const eval::Evaluator& ev, StaffIdx s, DayIdx first, 
     const int reachable = needsMinutes ? mostPaid_[static_cast<size_t>(d - first + 1)] : 0;
     const int from = static_cast<int>(layerBegin);
     const int to = static_cast<int>(labels_.size());
-    const TaskIdx current = roster.at(s, d);
+    const TaskIdx current = ev ? ev->roster().at(s, d) : kOff;  // counted in ev's cover
     next_.clear();
     for (const TaskIdx* t = e_->begin(s, d); t != e_->end(s, d); ++t) {
       if (needs && (needs[d] == kAnyShift ? *t == kOff : needs[d] != kAnyTask && *t != needs[d])) continue;
       // The cover this person's task earns: its price, or the change it makes with everyone
       // else as they are.
-      double cellCost = ev.cellCost(s, d, *t).weighed(hardWeight);
+      double cellCost = rules_->cellCost(s, d, *t).weighed(hardWeight);
       if (*t != kOff && prices) {
         cellCost += prices[static_cast<size_t>(d) * static_cast<size_t>(p_->taskCount()) + static_cast<size_t>(*t)];
       } else if (*t != kOff) {
-        const int others = ev.coverCount(d, *t) - (current == *t);
+        const int others = ev->coverCount(d, *t) - (current == *t);
         cellCost += (cover.cellTally(d, *t, others + 1) - cover.cellTally(d, *t, others)).weighed(hardWeight);
       }
       const ShiftIdx sh = taskShift_[static_cast<size_t>(*t)];

@@ -40,11 +40,24 @@ class RowRefit {
   /// change). `needs` (per period day; nullptr for none) says what days must hold.
   /// Returns false if no row satisfies them and the modelled rules.
   bool refit(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const TaskIdx* needs, double hardWeight,
-             eval::Move& move);
+             eval::Move& move) {
+    return refit(ev.roster(), ev, s, first, length, needs, hardWeight, move);
+  }
+  /// The same with person s's row read from `roster`, which may differ from ev's on days
+  /// outside the window (earlier windows of the row re-fitted but not applied yet) and in
+  /// other people's rows; cover is ev's.
+  bool refit(const model::Roster& roster, const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length,
+             const TaskIdx* needs, double hardWeight, eval::Move& move);
   /// Like refit, but a worked cell costs its price, `prices[day * tasks + task]`, instead of the
   /// change in cover it makes: the others' cells do not matter. Sets `cost` to the cheapest
   /// row's cost (cell-local rules plus prices).
   bool refitAtPrices(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const double* prices,
+                     double hardWeight, eval::Move& move, double& cost) {
+    return refitAtPrices(ev.roster(), s, first, length, prices, hardWeight, move, cost);
+  }
+  /// The same on any roster: only person s's row is read, so re-fits of different people may
+  /// run at once on one roster (each on its own RowRefit) while each writes only its own row.
+  bool refitAtPrices(const model::Roster& roster, StaffIdx s, DayIdx first, int length, const double* prices,
                      double hardWeight, eval::Move& move, double& cost);
 
   /// Whether the last call kept every label (its row is then the cheapest there is).
@@ -96,11 +109,12 @@ class RowRefit {
   /// Whether the window's last state joins the unchanged days after it without a modelled breach.
   bool joinsSuffix(const Limits& lim, const State& st, const model::Roster& roster, StaffIdx s, DayIdx end) const;
   static void packKey(Label& label);
-  /// The shortest path behind refit and refitAtPrices: cover priced by `prices`, or by the
-  /// roster in `ev` when it is null.
-  bool cheapestRow(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const TaskIdx* needs,
-                   const double* prices, double hardWeight, eval::Move& move, double& cost);
+  /// The shortest path behind refit and refitAtPrices: cover priced by `prices`, or, when they
+  /// are null, by the cover counts of `ev` (then `roster` is ev's).
+  bool cheapestRow(const model::Roster& roster, const eval::Evaluator* ev, StaffIdx s, DayIdx first, int length,
+                   const TaskIdx* needs, const double* prices, double hardWeight, eval::Move& move, double& cost);
 
+  const rules::RuleSet* rules_;
   const model::Problem* p_;
   const Eligibility* e_;
   std::vector<Limits> limits_;

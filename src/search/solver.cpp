@@ -26,13 +26,13 @@ constexpr double kStartHardWeight = 1000.0;
 /// The most of the time limit the relaxation may take.
 constexpr double kLagrangianTimeShare = 0.25;
 
-int resolveThreads(int requested, int islands) {
+/// Threads asked for, or every core.
+int wantedThreads(int requested) {
   int cores = 1;
 #ifdef _OPENMP
   cores = omp_get_num_procs();
 #endif
-  const int t = requested > 0 ? requested : cores;
-  return std::max(1, std::min(t, islands));
+  return std::max(1, requested > 0 ? requested : cores);
 }
 
 std::uint64_t resolveSeed(std::uint64_t seed) {
@@ -50,8 +50,9 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
 
   SolveResult result;
   result.seed = resolveSeed(options.seed);
-  result.islands = std::max(1, options.islands);
-  result.threads = resolveThreads(options.threads, result.islands);
+  const int threads = wantedThreads(options.threads);
+  result.islands = options.islands > 0 ? options.islands : std::max(kMinIslands, threads);
+  result.threads = std::min(threads, result.islands);
 
   const Eligibility eligibility(rules.problem());
   std::vector<std::unique_ptr<Island>> islands;
@@ -73,9 +74,9 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
   std::vector<model::Roster> starts;
   if (options.lagrangianRounds > 0 && options.lagrangianStarts > 0 && !eligibility.freeCells().empty()) {
     eval::Evaluator ev(rules);
-    RowRefit refit(rules, eligibility);
+    std::vector<RowRefit> refits(static_cast<size_t>(result.threads), RowRefit(rules, eligibility));
     Rng rng(splitmix64(seedState));
-    starts = lagrangianStarts(eligibility, ev, refit, rng, options.lagrangianRounds, options.lagrangianStarts, kStartHardWeight,
+    starts = lagrangianStarts(eligibility, ev, refits, rng, options.lagrangianRounds, options.lagrangianStarts, kStartHardWeight,
                               after(options.timeLimit * kLagrangianTimeShare))
                  .rosters;
   }

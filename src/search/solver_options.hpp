@@ -6,6 +6,9 @@
 
 namespace rotaweave::search {
 
+/// Islands when none are asked for and fewer threads run.
+inline constexpr int kMinIslands = 4;
+
 enum class Selection { Tournament, Rank, StochasticUniversal, Roulette };
 
 struct SolverOptions {
@@ -15,7 +18,7 @@ struct SolverOptions {
   double targetSoft = 0;          ///< stop once a roster has no hard penalty and at most this soft penalty (points)
   std::uint64_t seed = 0;         ///< 0: pick one from the clock (the one used is reported)
   int threads = 0;                ///< 0: all cores
-  int islands = 4;
+  int islands = 0;                ///< 0: one per thread, at least kMinIslands
   int population = 8;             ///< per island
   int elite = 2;
   Selection selection = Selection::Tournament;

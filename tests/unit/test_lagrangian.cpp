@@ -21,9 +21,11 @@ using Clock = std::chrono::steady_clock;
 /// so the relaxation is below every roster without a hard breach.
 struct Setup : test::RowRulesSetup {
   using RowRulesSetup::RowRulesSetup;
+  int threads = 1;
   search::LagrangianResult run(std::uint64_t seed, int rounds, int keep, Clock::time_point deadline = Clock::time_point::max()) {
     search::Rng rng(seed);
-    return search::lagrangianStarts(e, ev, refit, rng, rounds, keep, kWeight, deadline);
+    std::vector<search::RowRefit> refits(static_cast<size_t>(threads), refit);
+    return search::lagrangianStarts(e, ev, refits, rng, rounds, keep, kWeight, deadline);
   }
   /// A random roster, then each row re-fitted against the real cover a few times: good rosters.
   model::Roster refitted(search::Rng& rng) {
@@ -115,5 +117,33 @@ TEST_SUITE("search") {
       CHECK(r.rounds == 0);
       CHECK(r.rosters.empty());
     }
+  }
+
+  TEST_CASE("Lagrangian starts are the same on any number of threads") {
+    // 48 people, so repairs re-fit groups of three at once.
+    std::string staff = "staff:\n";
+    for (int i = 0; i < 48; ++i)
+      staff += "  - {id: p" + std::to_string(i) + ", skills: [rn]" + (i % 5 == 0 ? ", absences: [{date: 2027-03-0" + std::to_string(1 + i % 9) + "}]" : "") + "}\n";
+    const model::Problem p = test::loadYaml(test::header(21) + staff +
+                                            "demand:\n  - {shift: E, skill: rn, min: 16, target: 20, severity: soft}\n"
+                                            "  - {shift: L, skill: rn, min: 16, severity: soft}\n  - {shift: N, skill: rn, min: 10, max: 12, severity: soft}\n"
+                                            "rules:\n  list:\n"
+                                            "    - {kind: min-rest, hours: 11, severity: hard}\n"
+                                            "    - {kind: max-consecutive-days, days: 5, severity: hard}\n"
+                                            "    - {kind: min-hours, hours: 80, severity: hard}\n"
+                                            "    - {kind: max-hours, hours: 120, severity: hard}\n");
+    const rules::RuleSet set(p);
+    const search::Eligibility e(p);
+    auto run = [&](int threads) {
+      eval::Evaluator ev(set);
+      std::vector<search::RowRefit> refits(static_cast<size_t>(threads), search::RowRefit(set, e));
+      search::Rng rng(5);
+      return search::lagrangianStarts(e, ev, refits, rng, 12, 3, kWeight, Clock::time_point::max());
+    };
+    const search::LagrangianResult one = run(1), three = run(3);
+    CHECK(one.rounds > 1);
+    CHECK(one.rounds == three.rounds);
+    CHECK(one.rosters == three.rosters);
+    CHECK(one.dual == three.dual);
   }
 }
