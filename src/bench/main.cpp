@@ -12,7 +12,8 @@ namespace {
 
 constexpr const char* kUsage =
     "usage: rotaweave-bench MODE ...\n"
-    "  speed [SCENARIO.yaml...]   one JSON line per scenario (a generated 50 x 31 one without arguments)\n"
+    "ITEM: a scenario .yaml, a benchmark InstanceN.txt (converted first) or generated:PxD (P people, D days)\n"
+    "  speed [ITEM...]            rates and phase times, about 30 s an item (default generated:50x31)\n"
     "  convert INSTANCE.txt OUT.yaml\n"
     "  run INSTANCE.txt [--time-limit S] [--threads N] [--seed N] [--islands N]\n";
 

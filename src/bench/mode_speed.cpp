@@ -1,18 +1,17 @@
-/// @brief `speed [SCENARIO.yaml...]`: evaluation and generation rates, one JSON line per
-/// scenario (a generated 50 x 31 one without arguments).
+/// @brief `speed [ITEM...]`: evaluation and generation rates, one JSON line per item (a
+/// scenario YAML, InstanceN.txt or generated:PxD; the generated 50 x 31 without arguments),
+/// in about 30 s each.
 #include <algorithm>
+#include <cmath>
 #include <cstdio>
-#include <filesystem>
 #include <string>
-#include <utility>
 #include <vector>
 
-#include "bench/generated_scenario.hpp"
+#include "bench/items.hpp"
+#include "bench/json_line.hpp"
 #include "bench/measure.hpp"
 #include "bench/modes.hpp"
 #include "eval/evaluator.hpp"
-#include "io/atomic_file.hpp"
-#include "io/report_json.hpp"
 #include "io/scenario_loader.hpp"
 #include "report/report.hpp"
 #include "search/construction.hpp"
@@ -22,8 +21,6 @@
 
 namespace rotaweave::bench {
 namespace {
-
-namespace fs = std::filesystem;
 
 /// Best and median of five 0.4 s samples of a rate: a shared machine's noise only ever slows
 /// a sample down, so the best shows the code's speed and the median what to expect.
@@ -85,65 +82,114 @@ Rate movesPerSecond(const rules::RuleSet& set, const search::Eligibility& e, boo
   });
 }
 
-search::SolveResult solveFor(const rules::RuleSet& set, int threads, long generations) {
+/// One scenario should take about this long, whatever its size (a 30-person month used to take
+/// over two minutes, most of it the relaxation that opens every solve); more only where one
+/// generation alone takes longer.
+constexpr double kScenarioBudgetSeconds = 30;
+/// Kept back from the budget for what the plan below does not foresee and the output.
+constexpr double kReserveSeconds = 2;
+/// The most generations a timed solve runs (what the bench always ran when time was no object).
+constexpr long kMostGenerations = 12;
+
+/// The options of every solve here: seed 1, four islands, the solver's defaults otherwise, and
+/// no stop before the generation count (a roster without penalty ends a normal solve early,
+/// but here the count is the measure).
+search::SolverOptions speedOptions(int threads) {
   search::SolverOptions o;
   o.seed = 1;
   o.islands = 4;
   o.threads = threads;
-  o.generations = generations;
   o.stallGenerations = 0;
-  o.timeLimit = 3600;
-  return search::solve(set, o, {}, nullptr);
+  o.targetSoft = -1;
+  return o;
 }
 
-/// The fastest of three identical solves: like the rates above, noise from other tenants of
-/// the machine only ever slows a run down. `cpuPerWall` is the process CPU time over the wall
-/// time of that run: 2.0 means both threads were busy throughout (no waiting at barriers).
+/// `cpuPerWall` is the process CPU time over the wall time of the whole solve.
 struct TimedSolve {
   search::SolveResult result;
-  double wallSeconds = 1e300, cpuPerWall = 0;
+  double wallSeconds = 0, cpuPerWall = 0;
+  /// Generations per second of the generations phase alone (the relaxation and the first
+  /// populations left out); NaN when none ran or the time limit cut them short, since then
+  /// islands may have run different numbers of them (with fewer threads than islands, the
+  /// islands of an epoch run one after the other).
+  double generationRate() const {
+    if (result.stopReason != "generation limit" || result.phases.empty()) return std::nan("");
+    return static_cast<double>(result.generations) / result.phases.back().seconds;
+  }
 };
 
-TimedSolve timedSolve(const rules::RuleSet& set, int threads, long generations) {
-  TimedSolve best;
-  for (int k = 0; k < 3; ++k) {
-    const double cpu0 = processCpuSeconds();
-    const auto t0 = Clock::now();
-    auto result = solveFor(set, threads, generations);
-    const double wall = secondsSince(t0);
-    if (wall < best.wallSeconds) best = TimedSolve{std::move(result), wall, (processCpuSeconds() - cpu0) / wall};
-  }
-  return best;
+TimedSolve timedSolve(const rules::RuleSet& set, const search::SolverOptions& o) {
+  const double cpu0 = processCpuSeconds();
+  const auto t0 = Clock::now();
+  TimedSolve timed{search::solve(set, o, {}, nullptr)};
+  timed.wallSeconds = secondsSince(t0);
+  timed.cpuPerWall = (processCpuSeconds() - cpu0) / timed.wallSeconds;
+  return timed;
+}
+
+/// How the timed solves are bounded: a generation count, and a time limit that leaves room for
+/// all of them after the starts. The time limit also sets how long the relaxation may run (a
+/// quarter of it, and as long again for the pool's combination).
+struct Plan {
+  double firstPopulationSeconds = 0;  ///< probe: the first populations, without relaxation starts
+  double generationSeconds = 0;       ///< probe: one generation, one thread
+  long generations = 1;
+  double timeLimit = 0;
+};
+
+/// Times the first populations and one generation on one thread, with the relaxation off, then
+/// picks the most generations whose two solves (one and two threads) fit in `secondsLeft`.
+/// With W the one-thread work after the starts (populations plus generations), the time limit
+/// is 2W + 2 s: the starts take at most half of it, so the generations are never cut. The two
+/// solves then take about 2.5 W + 1 s (the two-thread one about half the work, the same starts).
+Plan planSolves(const rules::RuleSet& set, double secondsLeft) {
+  search::SolverOptions probe = speedOptions(1);
+  probe.lagrangianRounds = 0;
+  probe.generations = 1;
+  probe.timeLimit = std::max(10.0, secondsLeft);
+  const search::SolveResult r = search::solve(set, probe, {}, nullptr);
+  Plan plan;
+  plan.firstPopulationSeconds = r.phases[1].seconds;
+  plan.generationSeconds = r.generations == 1 ? r.phases[2].seconds : probe.timeLimit;
+  auto work = [&](long g) { return plan.firstPopulationSeconds + static_cast<double>(g) * plan.generationSeconds; };
+  while (plan.generations < kMostGenerations && 2.5 * work(plan.generations + 1) + 1 <= secondsLeft) ++plan.generations;
+  plan.timeLimit = std::ceil(2 * work(plan.generations) + 2);
+  return plan;
 }
 
 }  // namespace
 
 int speedMode(const Args& args) {
-  std::vector<std::pair<std::string, std::string>> scenarios;  // (label, path)
-  for (const auto& a : args) scenarios.emplace_back(a, a);
-  if (scenarios.empty()) {
-    const fs::path tmp = fs::temp_directory_path() / "rotaweave-bench-50x31.yaml";
-    io::writeFileAtomic(tmp, generatedScenarioYaml(50, 31, 3));
-    scenarios.emplace_back("generated-50x31", tmp.string());
-  }
-  for (const auto& [label, path] : scenarios) {
-    const model::Problem p = io::loadScenario(path);
+  ScratchFolder scratch("speed");
+  std::vector<std::string> items = args;
+  if (items.empty()) items.push_back("generated:50x31");
+  for (const auto& arg : items) {
+    const auto started = Clock::now();
+    const Item item = resolveItem(arg, scratch.path());
+    const model::Problem p = io::loadScenario(item.yaml.string());
     const rules::RuleSet set(p);
     const search::Eligibility e(p);
     const Rate full = fullEvalsPerSecond(set, e);
     const Rate moves = movesPerSecond(set, e, false), bounded = movesPerSecond(set, e, true);
-    const long gens = 12;
-    const TimedSolve one = timedSolve(set, 1, gens), two = timedSolve(set, 2, gens);
-    const double s1 = one.wallSeconds, s2 = two.wallSeconds;
-    std::printf("{\"scenario\": %s, \"people\": %d, \"days\": %d, \"full_evals_per_s\": %.0f, \"full_evals_per_s_median\": %.0f, "
-                "\"moves_per_s\": %.0f, \"moves_per_s_median\": %.0f, \"bounded_moves_per_s\": %.0f, \"bounded_moves_per_s_median\": %.0f, "
-                "\"gens_per_s_1t\": %.2f, \"gens_per_s_2t\": %.2f, \"speedup_2t\": %.2f, \"cpu_per_wall_2t\": %.2f, \"ms_per_generation_2t\": %.1f, "
-                "\"same_roster_1t_2t\": %s, \"best_hard\": %s, \"best_soft\": %s, \"budget_generations\": %ld, \"peak_rss_mb\": %.1f}\n",
-                io::jsonString(label).c_str(), p.staffCount(), p.days, full.best, full.median, moves.best, moves.median, bounded.best, bounded.median, static_cast<double>(gens) / s1,
-                static_cast<double>(gens) / s2, s1 / s2, two.cpuPerWall, 1000.0 * s2 / static_cast<double>(gens),
-                one.result.best == two.result.best ? "true" : "false", report::pointsText(two.result.score.hard).c_str(),
-                report::pointsText(two.result.score.soft).c_str(), gens, peakRssMb());
-    std::fflush(stdout);
+    const Plan plan = planSolves(set, kScenarioBudgetSeconds - kReserveSeconds - secondsSince(started));
+    search::SolverOptions o1 = speedOptions(1), o2 = speedOptions(2);
+    o1.generations = o2.generations = plan.generations;
+    o1.timeLimit = o2.timeLimit = plan.timeLimit;
+    const TimedSolve one = timedSolve(set, o1), two = timedSolve(set, o2);
+    const double rate1 = one.generationRate(), rate2 = two.generationRate();
+    JsonLine line;
+    line.text("scenario", item.label).integer("people", p.staffCount()).integer("days", p.days);
+    line.number("full_evals_per_s", full.best, 0).number("full_evals_per_s_median", full.median, 0);
+    line.number("moves_per_s", moves.best, 0).number("moves_per_s_median", moves.median, 0);
+    line.number("bounded_moves_per_s", bounded.best, 0).number("bounded_moves_per_s_median", bounded.median, 0);
+    line.number("probe_generation_s_1t", plan.generationSeconds, 2).integer("generations", plan.generations);
+    line.number("solve_time_limit_s", plan.timeLimit, 0).text("stop_1t", one.result.stopReason).text("stop_2t", two.result.stopReason);
+    line.number("gens_per_s_1t", rate1, 2).number("gens_per_s_2t", rate2, 2);
+    line.number("speedup_2t", rate2 / rate1, 2).number("ms_per_generation_2t", 1000.0 / rate2, 1);
+    line.number("cpu_per_wall_2t", two.cpuPerWall, 2).raw("phases_1t", phasesJson(one.result.phases));
+    line.raw("phases_2t", phasesJson(two.result.phases));
+    line.raw("best_hard_2t", report::pointsText(two.result.score.hard)).raw("best_soft_2t", report::pointsText(two.result.score.soft));
+    line.number("seconds", secondsSince(started), 1).number("peak_rss_mb", peakRssMb(), 1).print();
   }
   return 0;
 }
