@@ -15,7 +15,8 @@ constexpr const char* kUsage =
     "ITEM: a scenario .yaml, a benchmark InstanceN.txt (converted first) or generated:PxD (P people, D days)\n"
     "  speed [ITEM...]            rates and phase times, about 30 s an item (default generated:50x31)\n"
     "  convert INSTANCE.txt OUT.yaml\n"
-    "  run INSTANCE.txt [--time-limit S] [--threads N] [--seed N] [--islands N]\n";
+    "  run INSTANCE.txt [--time-limit S] [--threads N] [--seed N] [--islands N]\n"
+    "  scaling ITEM [--time-limit S] [--threads 1,2,4,8,16] [--seed N] [--islands N]\n";
 
 }  // namespace
 
@@ -31,6 +32,7 @@ int main(int argc, char** argv) {
     if (all[0] == "speed") return bench::speedMode(args);
     if (all[0] == "convert") return bench::convertMode(args);
     if (all[0] == "run") return bench::runMode(args);
+    if (all[0] == "scaling") return bench::scalingMode(args);
     std::cerr << "rotaweave-bench: unknown mode '" << all[0] << "'\n" << kUsage;
     return 2;
   } catch (const rotaweave::io::InputError& e) {
