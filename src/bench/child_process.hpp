@@ -27,8 +27,8 @@ struct ChildRun {
   double wallSeconds = 0;         ///< from just before fork() to the child's exit being reaped
   double signalToExitSeconds = 0; ///< when signalled: from sending the signal to the exit being reaped
   /// The child's largest resident set. Linux counts the anonymous memory a child inherits at
-  /// fork (until exec) in it too, so this is the larger of that and the program's own peak; the
-  /// bench holds a few MiB when it starts a child, far below any solver run's own peak.
+  /// fork (until exec) in it too, so this is the larger of that and the program's own peak:
+  /// start children from a small process (ChildLauncher) for the program's own.
   double peakRssMb = 0;
 };
 

@@ -48,6 +48,7 @@ std::string folderName(const std::string& label) {
 }  // namespace
 
 int limitsMode(const Args& args) {
+  ChildLauncher launcher;
   const Arguments a(args, {"limits", "threads", "seed"});
   const auto limits = numberList(a.value("limits").value_or("5,10,60"), "--limits");
   const long threads = a.integer("threads", std::max(1U, std::thread::hardware_concurrency()));
@@ -70,7 +71,7 @@ int limitsMode(const Args& args) {
       call.threads = static_cast<int>(threads);
       call.seed = static_cast<std::uint64_t>(seed);
       call.killAfter = limit * 3 + 60;  // far past any sane overrun: only a hung run gets here
-      const SolveRun run = runSolve(call);
+      const SolveRun run = runSolve(launcher, call);
 
       const double over = run.child.wallSeconds - limit;
       const bool inTime = over <= allowedOverrun(limit);

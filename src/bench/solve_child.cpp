@@ -17,17 +17,18 @@ std::string numberText(double value) {
 
 }  // namespace
 
-SolveRun runSolve(const SolveCall& call) {
+SolveRun runSolve(ChildLauncher& launcher, const SolveCall& call) {
   ChildSpec spec;
   spec.argv = {siblingBinary("rotaweave").string(), "solve", call.scenario.string(), "--out", call.out.string(),
                "--time-limit", numberText(call.timeLimit), "--seed", std::to_string(call.seed), "--quiet"};
   if (call.threads > 0) spec.argv.insert(spec.argv.end(), {"--threads", std::to_string(call.threads)});
+  spec.argv.insert(spec.argv.end(), call.extra.begin(), call.extra.end());
   spec.log = call.out.string() + ".log";
   spec.killAfter = call.killAfter;
   spec.signalAfter = call.interruptAfter;
 
   SolveRun run;
-  run.child = runChild(spec);
+  run.child = launcher.run(spec);
   run.rosterCsv = std::filesystem::is_regular_file(call.out / "roster.csv");
   run.reportJson = std::filesystem::is_regular_file(call.out / "report.json");
   run.reportTxt = std::filesystem::is_regular_file(call.out / "report.txt");

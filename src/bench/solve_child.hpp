@@ -5,8 +5,10 @@
 #include <cstdint>
 #include <filesystem>
 #include <optional>
+#include <string>
+#include <vector>
 
-#include "bench/child_process.hpp"
+#include "bench/child_launcher.hpp"
 #include "bench/json_line.hpp"
 #include "bench/report_fields.hpp"
 
@@ -20,6 +22,7 @@ struct SolveCall {
   std::uint64_t seed = 1;
   double killAfter = 0;        ///< hard limit, seconds
   std::optional<double> interruptAfter;  ///< send SIGINT after this many seconds
+  std::vector<std::string> extra;        ///< more options for `solve`, e.g. {"--stall", "0"}
 };
 
 struct SolveRun {
@@ -28,8 +31,8 @@ struct SolveRun {
   bool rosterCsv = false, reportJson = false, reportTxt = false;
 };
 
-/// Runs `rotaweave solve` (the binary next to this one) with --quiet.
-SolveRun runSolve(const SolveCall& call);
+/// Runs `rotaweave solve` (the binary next to this one) with --quiet, through `launcher`.
+SolveRun runSolve(ChildLauncher& launcher, const SolveCall& call);
 
 /// Adds the fields every mode prints for a child run: wall_s, peak_rss_mb, exit (null when a
 /// signal ended it), signal, killed, hard and soft (null without a valid report), and
