@@ -17,6 +17,7 @@ constexpr const char* kUsage =
     "  convert INSTANCE.txt OUT.yaml\n"
     "  run INSTANCE.txt [--time-limit S] [--threads N] [--seed N] [--islands N]\n"
     "  limits [--limits 5,10,60] [--threads N] [--seed N] [ITEM...]   (default: the 24 instances, generated:300x31, generated:1000x31)\n"
+    "  interrupt [--at 0.5,2,5] [--threads N] [--seed N] [--phases] ITEM\n"
     "  scaling ITEM [--time-limit S] [--threads 1,2,4,8,16] [--seed N] [--islands N]\n";
 
 }  // namespace
@@ -34,6 +35,7 @@ int main(int argc, char** argv) {
     if (all[0] == "convert") return bench::convertMode(args);
     if (all[0] == "run") return bench::runMode(args);
     if (all[0] == "limits") return bench::limitsMode(args);
+    if (all[0] == "interrupt") return bench::interruptMode(args);
     if (all[0] == "scaling") return bench::scalingMode(args);
     std::cerr << "rotaweave-bench: unknown mode '" << all[0] << "'\n" << kUsage;
     return 2;
