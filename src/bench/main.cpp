@@ -18,7 +18,8 @@ constexpr const char* kUsage =
     "  run INSTANCE.txt [--time-limit S] [--threads N] [--seed N] [--islands N]\n"
     "  limits [--limits 5,10,60] [--threads N] [--seed N] [ITEM...]   (default: the 24 instances, generated:300x31, generated:1000x31)\n"
     "  interrupt [--at 0.5,2,5] [--threads N] [--seed N] [--phases] ITEM\n"
-    "  scaling ITEM [--time-limit S] [--threads 1,2,4,8,16] [--seed N] [--islands N]\n";
+    "  scaling ITEM [--time-limit S] [--threads 1,2,4,8,16] [--seed N] [--islands N]\n"
+    "  table DIR [--time-limit S] [--threads N] [--seeds 1,2,3] [--instances 1-24] [--keep DIR]\n";
 
 }  // namespace
 
@@ -37,6 +38,7 @@ int main(int argc, char** argv) {
     if (all[0] == "limits") return bench::limitsMode(args);
     if (all[0] == "interrupt") return bench::interruptMode(args);
     if (all[0] == "scaling") return bench::scalingMode(args);
+    if (all[0] == "table") return bench::tableMode(args);
     std::cerr << "rotaweave-bench: unknown mode '" << all[0] << "'\n" << kUsage;
     return 2;
   } catch (const rotaweave::io::InputError& e) {
