@@ -1,4 +1,5 @@
-/// @brief rotaweave-bench: speed figures, benchmark-instance conversion and benchmark runs.
+/// @brief rotaweave-bench: speed figures, benchmark-instance conversion, benchmark runs, and
+/// checks of the CLI from outside (time limits, interruption).
 /// Each mode lives in its own mode_*.cpp; this file only dispatches and maps errors to exit 2.
 #include <iostream>
 #include <stdexcept>
@@ -12,14 +13,19 @@ namespace {
 
 constexpr const char* kUsage =
     "usage: rotaweave-bench MODE ...\n"
-    "ITEM: a scenario .yaml, a benchmark InstanceN.txt (converted first) or generated:PxD (P people, D days)\n"
-    "  speed [ITEM...]            rates and phase times, about 30 s an item (default generated:50x31)\n"
+    "  speed [ITEM...]              evaluation and generation rates, phase times; about 30 s an item\n"
+    "                               (default generated:50x31)\n"
     "  convert INSTANCE.txt OUT.yaml\n"
     "  run INSTANCE.txt [--time-limit S] [--threads N] [--seed N] [--islands N]\n"
-    "  limits [--limits 5,10,60] [--threads N] [--seed N] [ITEM...]   (default: the 24 instances, generated:300x31, generated:1000x31)\n"
+    "  limits [--limits 5,10,60] [--threads N] [--seed N] [ITEM...]\n"
+    "                               `rotaweave solve` against its time limit, with peak memory (default:\n"
+    "                               the 24 instances of $ROTAWEAVE_DATASET, generated:300x31, generated:1000x31)\n"
     "  interrupt [--at 0.5,2,5] [--threads N] [--seed N] [--phases] ITEM\n"
+    "                               SIGINT to `rotaweave solve` at each time: latency and outputs\n"
     "  scaling ITEM [--time-limit S] [--threads 1,2,4,8,16] [--seed N] [--islands N]\n"
-    "  table DIR [--time-limit S] [--threads N] [--seeds 1,2,3] [--instances 1-24] [--keep DIR]\n";
+    "  table DIR [--time-limit S] [--threads N] [--seeds 1,2,3] [--instances 1-24] [--keep DIR]\n"
+    "                               benchmark instances over seeds as a markdown table\n"
+    "ITEM: a scenario .yaml, a benchmark InstanceN.txt (converted first) or generated:PxD (P people, D days)\n";
 
 }  // namespace
 

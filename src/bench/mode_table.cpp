@@ -11,6 +11,8 @@
 #include <memory>
 #include <string>
 #include <thread>
+#include <utility>
+#include <vector>
 
 #include "bench/arguments.hpp"
 #include "bench/benchmark_table.hpp"
@@ -69,7 +71,12 @@ int tableMode(const Args& args) {
   const double timeLimit = a.number("time-limit", 60);
   const long threads = a.integer("threads", std::max(1U, std::thread::hardware_concurrency()));
   const auto seeds = rangeList(a.value("seeds").value_or("1,2,3"), "--seeds");
-  const auto numbers = rangeList(a.value("instances").value_or("1-24"), "--instances");
+  std::vector<std::pair<int, fs::path>> instances;
+  for (const long number : rangeList(a.value("instances").value_or("1-24"), "--instances")) {
+    const fs::path instance = dataset / ("Instance" + std::to_string(number) + ".txt");
+    if (fs::is_regular_file(instance)) instances.emplace_back(static_cast<int>(number), instance);
+  }
+  if (instances.empty()) throw std::invalid_argument("no InstanceN.txt for the asked instances in " + dataset.string());
 
   std::unique_ptr<ScratchFolder> temporary;
   fs::path keep;
@@ -84,13 +91,11 @@ int tableMode(const Args& args) {
   std::cerr << "rotaweave-bench: rosters kept in " << keep.string() << "\n";
 
   std::vector<TableRow> rows;
-  for (const long number : numbers) {
-    const fs::path instance = dataset / ("Instance" + std::to_string(number) + ".txt");
-    if (!fs::is_regular_file(instance)) continue;
+  for (const auto& [number, instance] : instances) {
     const Item item = resolveItem(instance.string(), keep);
     const model::Problem problem = io::loadScenario(item.yaml.string());
     const rules::RuleSet set(problem);
-    TableRow row{static_cast<int>(number), sizeText(problem), {}};
+    TableRow row{number, sizeText(problem), {}};
     for (const long seed : seeds) {
       SolveCall call;
       call.scenario = item.yaml;
@@ -118,7 +123,6 @@ int tableMode(const Args& args) {
     }
     rows.push_back(std::move(row));
   }
-  if (rows.empty()) throw std::invalid_argument("no InstanceN.txt for the asked instances in " + dataset.string());
 
   std::cout << "\nTime limit " << timeLimit << " s, " << threads << " threads, " << seeds.size()
             << " seed(s); hard and soft re-scored from the kept rosters; gap: (median soft - best known) / best known, "
