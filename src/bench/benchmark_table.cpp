@@ -54,8 +54,8 @@ std::string markdownTable(const std::vector<TableRow>& rows) {
                             std::all_of(hard.begin(), hard.end(), [](double h) { return h == 0; });
     const std::string gap =
         comparable ? number(100.0 * (median(soft) - published->bestUpper) / published->bestUpper, 1) : "–";
-    out += "| " + std::to_string(row.instance) + " | " + row.size + " | " + spread(hard) + " | " + spread(soft) + " | " +
-           (wall.empty() ? "–" : number(median(wall), 1)) + " | " +
+    out += "| " + std::to_string(row.instance) + " | " + row.size + " | " + spread(hard) + " | " + spread(soft) +
+           " | " + (wall.empty() ? "–" : number(median(wall), 1)) + " | " +
            (published ? std::to_string(published->bestUpper) : "–") + " | " +
            (published ? std::to_string(published->tenMinutes) : "–") + " | " + gap + " |\n";
   }

@@ -42,9 +42,13 @@ bool readAll(int fd, void* data, size_t size) {
 }
 
 template <class T>
-bool writeValue(int fd, const T& value) { return writeAll(fd, &value, sizeof value); }
+bool writeValue(int fd, const T& value) {
+  return writeAll(fd, &value, sizeof value);
+}
 template <class T>
-bool readValue(int fd, T& value) { return readAll(fd, &value, sizeof value); }
+bool readValue(int fd, T& value) {
+  return readAll(fd, &value, sizeof value);
+}
 
 bool writeString(int fd, const std::string& s) {
   return writeValue(fd, static_cast<std::uint32_t>(s.size())) && writeAll(fd, s.data(), s.size());
@@ -88,8 +92,14 @@ bool readRequest(int fd, ChildSpec& spec) {
     Answer answer{};
     try {
       const ChildRun run = runChild(spec);
-      answer = Answer{run.exitStatus.has_value(), run.exitStatus.value_or(0), run.termSignal.has_value(),
-                      run.termSignal.value_or(0), run.killed, run.signalled, run.wallSeconds, run.signalToExitSeconds,
+      answer = Answer{run.exitStatus.has_value(),
+                      run.exitStatus.value_or(0),
+                      run.termSignal.has_value(),
+                      run.termSignal.value_or(0),
+                      run.killed,
+                      run.signalled,
+                      run.wallSeconds,
+                      run.signalToExitSeconds,
                       run.peakRssMb};
     } catch (const std::exception&) {
       answer.hasExit = 0;  // neither an exit nor a signal: the bench reports the child as not run

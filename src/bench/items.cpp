@@ -27,7 +27,8 @@ Item generatedItem(const std::string& arg, const fs::path& scratch) {
   if (people < 1 || people > 100000 || days < 1 || days > 366)
     throw std::invalid_argument(arg + ": people must be 1-100000 and days 1-366");
   Item item{arg, scratch / ("generated-" + size + ".yaml"), 0};
-  io::writeFileAtomic(item.yaml, generatedScenarioYaml(static_cast<int>(people), static_cast<int>(days), kGeneratedShifts));
+  io::writeFileAtomic(item.yaml,
+                      generatedScenarioYaml(static_cast<int>(people), static_cast<int>(days), kGeneratedShifts));
   return item;
 }
 

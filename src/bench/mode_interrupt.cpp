@@ -56,7 +56,8 @@ PhaseEnds measurePhases(const Item& item, long threads, long seed) {
   o.threads = static_cast<int>(threads);
   o.seed = static_cast<std::uint64_t>(seed);
   for (const auto& phase : search::solve(set, o, {}, nullptr).phases)
-    phases.ends.emplace_back(std::string(phase.name) == "generations" ? "generation 1" : phase.name, at += phase.seconds);
+    phases.ends.emplace_back(std::string(phase.name) == "generations" ? "generation 1" : phase.name,
+                             at += phase.seconds);
   return phases;
 }
 
@@ -77,7 +78,8 @@ int interruptMode(const Args& args) {
   ChildLauncher launcher;  // before the scenario is loaded or solved here: see child_launcher.hpp
   const Arguments a(args, {"at", "threads", "seed"}, {"phases"});
   if (a.positional().size() != 1)
-    throw std::invalid_argument("usage: rotaweave-bench interrupt [--at 0.5,2,5] [--threads N] [--seed N] [--phases] ITEM");
+    throw std::invalid_argument(
+        "usage: rotaweave-bench interrupt [--at 0.5,2,5] [--threads N] [--seed N] [--phases] ITEM");
   const auto times = numberList(a.value("at").value_or("0.5,2,5"), "--at");
   const long threads = a.integer("threads", std::max(1U, std::thread::hardware_concurrency()));
   const long seed = a.integer("seed", 1);
@@ -111,11 +113,13 @@ int interruptMode(const Args& args) {
     const auto& status = run.child.exitStatus;
     const bool exitOk = status && (*status == 0 || *status == 1);
     const std::string rosterError = run.rosterCsv ? rosterProblem(call.out / "roster.csv", problem) : "no roster.csv";
-    const bool whole = exitOk && run.child.signalled && !run.child.killed && rosterError.empty() && run.report.valid && run.reportTxt;
+    const bool whole =
+        exitOk && run.child.signalled && !run.child.killed && rosterError.empty() && run.report.valid && run.reportTxt;
     JsonLine line;
     line.text("item", item.label).number("at_s", times[k], -1);
     if (!phases.ends.empty()) line.text("phase", phases.phaseAt(times[k]));
-    line.boolean("signalled", run.child.signalled).number("latency_s", run.child.signalled ? run.child.signalToExitSeconds : std::nan(""), 3);
+    line.boolean("signalled", run.child.signalled)
+        .number("latency_s", run.child.signalled ? run.child.signalToExitSeconds : std::nan(""), 3);
     addSolveFields(line, run);
     line.boolean("exit_ok", exitOk).boolean("roster_rows_ok", rosterError.empty());
     if (!rosterError.empty()) line.text("roster_error", rosterError);
@@ -126,7 +130,8 @@ int interruptMode(const Args& args) {
 
     ++runs;
     ok += whole;
-    if (run.child.signalled && run.child.signalToExitSeconds > worstLatency) worstLatency = run.child.signalToExitSeconds, worstAt = times[k];
+    if (run.child.signalled && run.child.signalToExitSeconds > worstLatency)
+      worstLatency = run.child.signalToExitSeconds, worstAt = times[k];
   }
   JsonLine summary;
   summary.text("summary", "interrupt").text("item", item.label).integer("runs", runs).integer("ok", ok);

@@ -32,7 +32,8 @@ std::vector<std::string> defaultItems() {
     if (fs::is_regular_file(instance)) items.push_back(instance.string());
   }
   if (items.empty())
-    std::cerr << "rotaweave-bench: no benchmark instances in " << dataset << " (set ROTAWEAVE_DATASET); generated items only\n";
+    std::cerr << "rotaweave-bench: no benchmark instances in " << dataset
+              << " (set ROTAWEAVE_DATASET); generated items only\n";
   items.insert(items.end(), {"generated:300x31", "generated:1000x31"});
   return items;
 }

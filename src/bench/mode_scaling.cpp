@@ -20,7 +20,8 @@ namespace rotaweave::bench {
 int scalingMode(const Args& args) {
   const Arguments a(args, {"time-limit", "threads", "seed", "islands"});
   if (a.positional().size() != 1)
-    throw std::invalid_argument("usage: rotaweave-bench scaling ITEM [--time-limit S] [--threads 1,2,4,8,16] [--seed N] [--islands N]");
+    throw std::invalid_argument(
+        "usage: rotaweave-bench scaling ITEM [--time-limit S] [--threads 1,2,4,8,16] [--seed N] [--islands N]");
   const double timeLimit = a.number("time-limit", 10);
   const auto threadCounts = rangeList(a.value("threads").value_or("1,2,4,8,16"), "--threads");
   const long seed = a.integer("seed", 1);
@@ -36,13 +37,17 @@ int scalingMode(const Args& args) {
     o.timeLimit = timeLimit;
     o.stallGenerations = 0;  // the whole time limit at every thread count, so the lines compare
     o.threads = static_cast<int>(threads);
-    o.islands = a.has("islands") ? static_cast<int>(a.integer("islands", o.islands)) : std::max<int>(o.islands, o.threads);
+    o.islands =
+        a.has("islands") ? static_cast<int>(a.integer("islands", o.islands)) : std::max<int>(o.islands, o.threads);
     const double cpu0 = processCpuSeconds();
     const auto t0 = Clock::now();
     const search::SolveResult r = search::solve(set, o, {}, nullptr);
     const double wall = secondsSince(t0);
     JsonLine line;
-    line.text("item", item.label).integer("threads", threads).integer("threads_used", r.threads).integer("islands", r.islands);
+    line.text("item", item.label)
+        .integer("threads", threads)
+        .integer("threads_used", r.threads)
+        .integer("islands", r.islands);
     line.integer("generations", r.generations).raw("best_hard", report::pointsText(r.score.hard));
     line.raw("best_soft", report::pointsText(r.score.soft)).number("wall_s", wall, 3);
     line.number("cpu_per_wall", (processCpuSeconds() - cpu0) / wall, 2).raw("phases", phasesJson(r.phases));

@@ -73,8 +73,8 @@ Rate movesPerSecond(const rules::RuleSet& set, const search::Eligibility& e, boo
       search::randomMove(e, ev.roster(), rng, move);
       if (move.size == 0) continue;
       const rules::Tally now = ev.total();
-      const bool noWorse = bounded ? ev.tryMoveWithin(move, kHardWeight, now.weighed(kHardWeight))
-                                   : !(now < ev.tryMove(move));
+      const bool noWorse =
+          bounded ? ev.tryMoveWithin(move, kHardWeight, now.weighed(kHardWeight)) : !(now < ev.tryMove(move));
       if (noWorse && rng.below(10) == 0) ev.commit();
       ++n;
     }
@@ -183,12 +183,15 @@ int speedMode(const Args& args) {
     line.number("moves_per_s", moves.best, 0).number("moves_per_s_median", moves.median, 0);
     line.number("bounded_moves_per_s", bounded.best, 0).number("bounded_moves_per_s_median", bounded.median, 0);
     line.number("probe_generation_s_1t", plan.generationSeconds, 2).integer("generations", plan.generations);
-    line.number("solve_time_limit_s", plan.timeLimit, 0).text("stop_1t", one.result.stopReason).text("stop_2t", two.result.stopReason);
+    line.number("solve_time_limit_s", plan.timeLimit, 0)
+        .text("stop_1t", one.result.stopReason)
+        .text("stop_2t", two.result.stopReason);
     line.number("gens_per_s_1t", rate1, 2).number("gens_per_s_2t", rate2, 2);
     line.number("speedup_2t", rate2 / rate1, 2).number("ms_per_generation_2t", 1000.0 / rate2, 1);
     line.number("cpu_per_wall_2t", two.cpuPerWall, 2).raw("phases_1t", phasesJson(one.result.phases));
     line.raw("phases_2t", phasesJson(two.result.phases));
-    line.raw("best_hard_2t", report::pointsText(two.result.score.hard)).raw("best_soft_2t", report::pointsText(two.result.score.soft));
+    line.raw("best_hard_2t", report::pointsText(two.result.score.hard))
+        .raw("best_soft_2t", report::pointsText(two.result.score.soft));
     line.number("seconds", secondsSince(started), 1).number("peak_rss_mb", peakRssMb(), 1).print();
   }
   return 0;

@@ -66,7 +66,9 @@ int tableMode(const Args& args) {
   ChildLauncher launcher;  // before any scenario is loaded here: see child_launcher.hpp
   const Arguments a(args, {"time-limit", "threads", "seeds", "instances", "keep"});
   if (a.positional().size() != 1)
-    throw std::invalid_argument("usage: rotaweave-bench table DIR [--time-limit S] [--threads N] [--seeds 1,2,3] [--instances 1-24] [--keep DIR]");
+    throw std::invalid_argument(
+        "usage: rotaweave-bench table DIR [--time-limit S] [--threads N] [--seeds 1,2,3] [--instances 1-24] [--keep "
+        "DIR]");
   const fs::path dataset = a.positional()[0];
   const double timeLimit = a.number("time-limit", 60);
   const long threads = a.integer("threads", std::max(1U, std::thread::hardware_concurrency()));
@@ -108,10 +110,14 @@ int tableMode(const Args& args) {
       const Rescore score = rescore(call.out / "roster.csv", set);
 
       JsonLine line;
-      line.text("instance", item.label).integer("seed", seed).number("time_limit", timeLimit, -1).integer("threads", threads);
+      line.text("instance", item.label)
+          .integer("seed", seed)
+          .number("time_limit", timeLimit, -1)
+          .integer("threads", threads);
       addSolveFields(line, run);
       if (score.scored) {
-        line.raw("rescored_hard", report::pointsText(score.tally.hard)).raw("rescored_soft", report::pointsText(score.tally.soft));
+        line.raw("rescored_hard", report::pointsText(score.tally.hard))
+            .raw("rescored_soft", report::pointsText(score.tally.soft));
         line.boolean("rescore_matches_report", run.report.valid && pointsValue(score.tally.hard) == run.report.hard &&
                                                    pointsValue(score.tally.soft) == run.report.soft);
       } else {

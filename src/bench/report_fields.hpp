@@ -11,8 +11,8 @@ struct ReportFields {
   bool valid = false;  ///< the file parsed as a whole and has summary.hard, summary.soft and a violations list
   double hard = 0, soft = 0;
   long generations = 0;
-  std::string stop;    ///< run.stop, e.g. "time limit", "interrupted"
-  std::string error;   ///< why it is not valid
+  std::string stop;   ///< run.stop, e.g. "time limit", "interrupted"
+  std::string error;  ///< why it is not valid
 };
 
 /// Reads report.json with yaml-cpp (the project's YAML library; JSON's syntax is YAML's flow

@@ -19,8 +19,16 @@ std::string numberText(double value) {
 
 SolveRun runSolve(ChildLauncher& launcher, const SolveCall& call) {
   ChildSpec spec;
-  spec.argv = {siblingBinary("rotaweave").string(), "solve", call.scenario.string(), "--out", call.out.string(),
-               "--time-limit", numberText(call.timeLimit), "--seed", std::to_string(call.seed), "--quiet"};
+  spec.argv = {siblingBinary("rotaweave").string(),
+               "solve",
+               call.scenario.string(),
+               "--out",
+               call.out.string(),
+               "--time-limit",
+               numberText(call.timeLimit),
+               "--seed",
+               std::to_string(call.seed),
+               "--quiet"};
   if (call.threads > 0) spec.argv.insert(spec.argv.end(), {"--threads", std::to_string(call.threads)});
   spec.argv.insert(spec.argv.end(), call.extra.begin(), call.extra.end());
   spec.log = call.out.string() + ".log";

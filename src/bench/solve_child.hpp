@@ -16,11 +16,11 @@ namespace rotaweave::bench {
 
 struct SolveCall {
   std::filesystem::path scenario;
-  std::filesystem::path out;   ///< --out; the child's stdout and stderr go to out + ".log"
+  std::filesystem::path out;  ///< --out; the child's stdout and stderr go to out + ".log"
   double timeLimit = 60;
-  int threads = 0;             ///< 0: not passed (the solver's default, all cores)
+  int threads = 0;  ///< 0: not passed (the solver's default, all cores)
   std::uint64_t seed = 1;
-  double killAfter = 0;        ///< hard limit, seconds
+  double killAfter = 0;                  ///< hard limit, seconds
   std::optional<double> interruptAfter;  ///< send SIGINT after this many seconds
   std::vector<std::string> extra;        ///< more options for `solve`, e.g. {"--stall", "0"}
 };
