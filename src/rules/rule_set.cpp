@@ -5,6 +5,7 @@
 #include <cassert>
 #include <map>
 
+#include "rules/forbid_pairs.hpp"
 #include "rules/row_buffer.hpp"
 #include "rules/row_rules.hpp"
 
@@ -64,6 +65,7 @@ RuleSet::RuleSet(const model::Problem& problem)
       }
     rowRules_.push_back(std::move(rule));
   }
+  groupForbiddenPairs();
   for (const auto& rules : sequence_) maxSequenceRules_ = std::max(maxSequenceRules_, rules.size());
   observers_.resize(problem.staff.size());
   for (size_t s = 0; s < problem.staff.size(); ++s) {
@@ -80,6 +82,25 @@ RuleSet::RuleSet(const model::Problem& problem)
     }
   }
   tabulateCellRules();
+}
+
+void RuleSet::groupForbiddenPairs() {
+  std::map<std::vector<const RowRule*>, const RowRule*> groups;  // people with the same pairs share one
+  for (auto& rules : sequence_) {
+    std::vector<const RowRule*> members;
+    for (const RowRule* rule : rules)
+      if (ForbidPairsRule::joins(*rule)) members.push_back(rule);
+    if (members.size() < 2) continue;
+    const RowRule*& group = groups[members];
+    if (!group) {
+      rowRules_.push_back(std::make_unique<ForbidPairsRule>(*problem_, members));
+      group = rowRules_.back().get();
+    }
+    // The group takes the place of its first member.
+    const auto first = std::find(rules.begin(), rules.end(), members.front());
+    *first = group;
+    rules.erase(std::remove_if(first + 1, rules.end(), [](const RowRule* rule) { return ForbidPairsRule::joins(*rule); }), rules.end());
+  }
 }
 
 void RuleSet::tabulateCellRules() {

@@ -30,7 +30,8 @@ class RuleSet {
   const model::Problem& problem() const { return *problem_; }
   /// Row rules that apply to person s, in declaration order (cell-local ones included).
   const std::vector<const RowRule*>& rulesFor(StaffIdx s) const { return perStaff_[static_cast<size_t>(s)]; }
-  /// The subsets of rulesFor(s) that are and are not cell-local.
+  /// The rules of rulesFor(s) that are not cell-local, as the evaluator asks them (forbidden
+  /// pairs of shifts grouped into one table); and those that are.
   const std::vector<const RowRule*>& sequenceRulesFor(StaffIdx s) const { return sequence_[static_cast<size_t>(s)]; }
   const std::vector<const RowRule*>& cellRulesFor(StaffIdx s) const { return cell_[static_cast<size_t>(s)]; }
   const CoverRule& cover() const { return cover_; }
@@ -56,6 +57,8 @@ class RuleSet {
   size_t maxSequenceRules_ = 0;
 
   void tabulateCellRules();
+  /// Replaces each person's forbidden pairs of shifts by one table (rules/forbid_pairs.hpp).
+  void groupForbiddenPairs();
 };
 
 }  // namespace rotaweave::rules

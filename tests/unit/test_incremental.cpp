@@ -24,6 +24,13 @@ void checkDeltas(const model::Problem& p, int moves, std::uint64_t seed) {
   search::randomRoster(elig, g, 0.5, rng);
   inc.load(g);
   REQUIRE(inc.total() == full.score(g));
+  // The report lists each rule on its own (the evaluator groups some); its penalties add up to the score.
+  auto explained = [&](const model::Roster& r) {
+    rules::Tally sum;
+    for (const auto& b : full.explain(r)) (b.hard ? sum.hard : sum.soft) += b.penalty;
+    return sum;
+  };
+  REQUIRE(explained(g) == full.score(g));
   eval::Move move;
   for (int i = 0; i < moves; ++i) {
     search::randomMove(elig, inc.roster(), rng, move);
@@ -50,6 +57,7 @@ void checkDeltas(const model::Problem& p, int moves, std::uint64_t seed) {
       inc.commit();
       REQUIRE(inc.total() == actual);
       REQUIRE(inc.roster() == after);
+      if (i % 16 == 0) REQUIRE(explained(after) == actual);
     }
   }
 }
@@ -110,6 +118,10 @@ TEST_SUITE("eval") {
                                   "    - {kind: min-rest, hours: 11}\n"
                                   "    - {kind: forbid-sequence, sequence: [N, off, E]}\n"
                                   "    - {kind: forbid-sequence, sequence: [M, X]}\n"
+                                  "    - {kind: forbid-sequence, sequence: [N, E], severity: soft, weight: 3}\n"
+                                  "    - {kind: forbid-sequence, sequence: [N, L], staff: [a, b, c]}\n"
+                                  "    - {kind: forbid-sequence, sequence: [M, E], id: no-m-e-1}\n"
+                                  "    - {kind: forbid-sequence, sequence: [M, E], id: no-m-e-2, severity: soft}\n"
                                   "    - {kind: min-consecutive-days, days: 3}\n"
                                   "    - {kind: max-consecutive-days, days: 5}\n"
                                   "    - {kind: min-consecutive, shift: N, count: 2}\n"
