@@ -12,7 +12,7 @@ Outcome check(const std::string& scenario, const std::string& rosterPath, const 
   const model::Roster roster = io::readRosterCsv(rosterPath, problem);
   report::RunInfo run;
   run.command = "check";
-  return reportAndWrite(problem, roster, std::move(run), out);
+  return reportAndWrite(rules::RuleSet(problem), roster, std::move(run), out);
 }
 
 }  // namespace rotaweave::app

@@ -3,6 +3,7 @@
 /// Each loads and validates all input first, so bad input writes nothing, then computes,
 /// then writes every output atomically. Errors are thrown (io::InputError, io::OutputError).
 #pragma once
+#include <chrono>
 #include <filesystem>
 #include <string>
 #include <vector>
@@ -23,6 +24,8 @@ struct SolveRequest {
   std::string scenario;
   std::filesystem::path out = "out";
   search::SolverOptions options;
+  /// When the run began: the time limit counts from here, loading and writing included.
+  std::chrono::steady_clock::time_point startedAt = std::chrono::steady_clock::now();
 };
 Outcome solve(const SolveRequest& request);
 

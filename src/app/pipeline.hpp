@@ -6,6 +6,7 @@
 #include "app/commands.hpp"
 #include "model/problem.hpp"
 #include "model/roster.hpp"
+#include "rules/rule_set.hpp"
 
 namespace rotaweave::app {
 
@@ -16,7 +17,12 @@ void refuseToOverwrite(const std::filesystem::path& input, const std::filesystem
 Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::Roster>& seeds, const SolveRequest& request,
                        const char* command);
 
-Outcome reportAndWrite(const model::Problem& problem, const model::Roster& roster, report::RunInfo run,
+Outcome reportAndWrite(const rules::RuleSet& rules, const model::Roster& roster, report::RunInfo run,
                        const std::filesystem::path& out);
+
+/// Seconds the outputs of a run on `problem` are allowed for: taken from the time limit, so
+/// that the whole run, loading to the last file, keeps it. Grows with the roster's size,
+/// and is never more than a fifth of the limit.
+double outputReserve(const model::Problem& problem, double timeLimit);
 
 }  // namespace rotaweave::app

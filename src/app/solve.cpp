@@ -1,4 +1,7 @@
 /// @brief `solve`: search for a roster, then report and write it.
+#include <algorithm>
+#include <chrono>
+
 #include "app/commands.hpp"
 #include "app/pipeline.hpp"
 #include "app/progress.hpp"
@@ -14,11 +17,16 @@ Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::R
   const rules::RuleSet ruleSet(problem);
   search::installStopSignals();
   ProgressPrinter printer(request.options.quiet);
-  const search::SolveResult result = search::solve(ruleSet, request.options, seeds, std::ref(printer));
+  // The time limit covers the whole run: what loading took and what writing will take come
+  // out of the search's share.
+  search::SolverOptions options = request.options;
+  const double spent = std::chrono::duration<double>(std::chrono::steady_clock::now() - request.startedAt).count();
+  options.timeLimit = std::max(0.0, request.options.timeLimit - spent - outputReserve(problem, request.options.timeLimit));
+  const search::SolveResult result = search::solve(ruleSet, options, seeds, std::ref(printer));
   printer.finish(result);
   report::RunInfo run{command, result.seed, result.islands, result.threads, result.generations,
                       result.seconds, result.stopReason, result.history};
-  return reportAndWrite(problem, result.best, std::move(run), request.out);
+  return reportAndWrite(ruleSet, result.best, std::move(run), request.out);
 }
 
 Outcome solve(const SolveRequest& request) {
