@@ -4,6 +4,7 @@
 
 #include <filesystem>
 
+#include "bench/instance_format.hpp"
 #include "fixtures.hpp"
 #include "io/scenario_loader.hpp"
 #include "search/construction.hpp"
@@ -182,6 +183,23 @@ TEST_SUITE("eval") {
     after.at(0, 2) = kOff;
     CHECK(inc.tryMove(move) == full.score(after));
     CHECK_FALSE(full.score(after) == full.score(before));
+  }
+
+  TEST_CASE("incremental and full scores agree on converted 182- and 364-day benchmark instances") {
+    // Instances 20 and 22 of the open benchmark (Curtois and Qu, 2014), read from the shared
+    // dataset folder when it is there: hundreds of forbidden pairs, many shift limits.
+    namespace fs = std::filesystem;
+    const fs::path dataset = fs::path(ROTAWEAVE_SOURCE_DIR) / ".." / "shared" / "benchmarks" / "shift-scheduling";
+    if (!fs::exists(dataset / "Instance20.txt")) {
+      MESSAGE("skipped: benchmark dataset not found at " << dataset.string());
+      return;
+    }
+    for (const int n : {20, 22}) {
+      CAPTURE(n);
+      const std::string name = "Instance" + std::to_string(n);
+      const auto instance = bench::parseInstanceFile((dataset / (name + ".txt")).string());
+      checkDeltas(test::loadYaml(bench::toScenarioYaml(instance, name)), 800, 11);
+    }
   }
 
   TEST_CASE("incremental and full scores agree on the bundled samples") {
