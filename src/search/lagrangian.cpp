@@ -20,6 +20,9 @@ namespace {
 
 /// Rounds without a better relaxation before the step shrinks (a common subgradient schedule).
 constexpr int kPatience = 20;
+/// The step has shrunk this much (12 halvings: at least 240 rounds without a better
+/// relaxation): the prices no longer move enough to propose new rows.
+constexpr double kLeastScale = 1.0 / 4096;
 constexpr int kRepairPasses = 3;
 /// Cells the row pool may hold (2 bytes each): room for 1,000 rounds on 50 people over 31 days.
 constexpr size_t kMaxPoolCells = size_t{4} << 20;
@@ -202,7 +205,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, std
     if (now + (now - roundBegan) > deadline) break;
     if (norm == 0) break;  // every cell settled: the prices cannot move
     const double step = scale * std::max(bestPrimal - dual, 0.0) / norm;
-    if (step == 0) break;
+    if (step == 0 || scale < kLeastScale) break;
     for (size_t c = 0; c < cells; ++c) price[c] = std::clamp(price[c] - step * gradient[c], range[c].low, range[c].high);
   }
   result.dual = result.rounds > 0 ? bestDual : 0;
