@@ -58,7 +58,7 @@ def expect(name, ok, detail=""):
 
 
 def run(*args):
-    return subprocess.run([BINARY, *args], capture_output=True, text=True, timeout=120)
+    return subprocess.run([BINARY, *args], capture_output=True, text=True, timeout=900)
 
 
 def read_csv(path):
@@ -165,7 +165,7 @@ def main():
     runs = []
     for n in (1, 2):
         out = os.path.join(WORK, f"solve{n}")
-        p = run("solve", scenario_path, "--out", out, "--time-limit", "3", "--seed", "1", "--quiet")
+        p = run("solve", scenario_path, "--out", out, "--generations", "1", "--time-limit", "900", "--seed", "1", "--quiet")
         expect(f"solve {n} runs", p.returncode in (0, 1), p.stderr)
         runs.append(out)
     dates, cells = check_outputs("solve1", runs[0], scenario)
@@ -197,7 +197,7 @@ def main():
         with open(sample, encoding="utf-8") as f:
             data = yaml.safe_load(f)
         out = os.path.join(WORK, "sample-" + name)
-        p = run("solve", sample, "--out", out, "--time-limit", "3", "--seed", "1", "--quiet")
+        p = run("solve", sample, "--out", out, "--generations", "1", "--time-limit", "900", "--seed", "1", "--quiet")
         if p.returncode == 2:  # the sample itself is rejected: its loading is tested elsewhere
             print(f"SKIP {name}: rejected as input: {p.stderr.strip()}")
             continue
