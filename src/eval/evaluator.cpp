@@ -2,6 +2,7 @@
 #include "eval/evaluator.hpp"
 
 #include <algorithm>
+#include <bit>
 #include <cassert>
 #include <utility>
 
@@ -36,7 +37,8 @@ Evaluator::Evaluator(const rules::RuleSet& rules)
   keyStamp_.assign(static_cast<size_t>(days_ * tasks_), 0);
   fairScratch_.resize(p_->staff.size());
   spans_.resize(rules.maxSequenceRules() * kSpansPerRule);
-  asked_.resize(rules.maxSequenceRules());
+  asked_.resize(Move::kCapacity * rules.maxSequenceRules());
+  newRuleTally_.resize(Move::kCapacity * rules.maxSequenceRules());
   askedStamp_.assign(rules.maxSequenceRules(), 0);
   spanCount_.resize(rules.maxSequenceRules());
   const size_t fairRules = rules.fairShares().size();
@@ -179,11 +181,21 @@ void Evaluator::load(const model::Roster& roster) {
   rowTally_.resize(staff);
   rowCells_.resize(staff);
   total_ = Tally{};
+  const size_t rulesPerRow = rules_->maxSequenceRules();
+  ruleTally_.assign(staff * rulesPerRow, Tally{});
   for (StaffIdx s = 0; s < roster.staff; ++s) {
     fillLoadedRow(s);
     rowCells_[static_cast<size_t>(s)] = cellSum(s, roster_.row(s));
-    rowTally_[static_cast<size_t>(s)] = rowCells_[static_cast<size_t>(s)] + sequenceTally(loadedView(s));
-    total_ += rowTally_[static_cast<size_t>(s)];
+    const rules::RowView row = loadedView(s);
+    Tally& tally = rowTally_[static_cast<size_t>(s)];
+    tally = rowCells_[static_cast<size_t>(s)];
+    const auto& sequence = rules_->sequenceRulesFor(s);
+    for (size_t k = 0; k < sequence.size(); ++k) {
+      Tally& rule = ruleTally_[static_cast<size_t>(s) * rulesPerRow + k];
+      sequence[k]->scoreRow(row, rule, nullptr);
+      tally += rule;
+    }
+    total_ += tally;
   }
   coverCount_.resize(static_cast<size_t>(days_ * tasks_));
   countCover(roster_, coverCount_);
@@ -206,15 +218,12 @@ void Evaluator::load(const model::Roster& roster) {
   }
 }
 
-int Evaluator::rulesToAsk(StaffIdx s, const CellChange* changes, int count) {
+int Evaluator::rulesToAsk(StaffIdx s, const CellChange* changes, int count, std::uint32_t* asked) {
   const rules::RuleObservers& observers = rules_->observersFor(s);
-  if (++askStamp_ == 0) std::fill(askedStamp_.begin(), askedStamp_.end(), 0), askStamp_ = 1;  // wrapped around
-  int n = 0;
-  auto ask = [&](const std::vector<std::uint32_t>& rules) {
-    for (const std::uint32_t k : rules)
-      if (askedStamp_[k] != askStamp_) askedStamp_[k] = askStamp_, asked_[static_cast<size_t>(n++)] = k;
-  };
+  // What the changes alter: which shifts days hold, whether they are worked, paid minutes, times.
   bool worked = false, paid = false, times = false;
+  std::array<ShiftIdx, 2 * Move::kCapacity> shifts;
+  int shiftCount = 0;
   for (int j = 0; j < count; ++j) {
     const auto was = static_cast<size_t>(roster_.at(s, changes[j].day)), now = static_cast<size_t>(changes[j].task);
     const ShiftIdx from = tables_.taskShift[was], to = tables_.taskShift[now];
@@ -223,15 +232,121 @@ int Evaluator::rulesToAsk(StaffIdx s, const CellChange* changes, int count) {
     paid |= tables_.taskPaid[was] != tables_.taskPaid[now];
     times |= tables_.taskStart[was] != tables_.taskStart[now] || tables_.taskEnd[was] != tables_.taskEnd[now] ||
              (from == kNoShift) != (to == kNoShift);
-    if (from != kNoShift) ask(observers.byShift[static_cast<size_t>(from)]);
-    if (to != kNoShift) ask(observers.byShift[static_cast<size_t>(to)]);
+    if (from != kNoShift) shifts[static_cast<size_t>(shiftCount++)] = from;
+    if (to != kNoShift) shifts[static_cast<size_t>(shiftCount++)] = to;
   }
+  // The rules reading any of that, in declaration order, so the bounded try meets them in the
+  // same order every time.
+  int n = 0;
+  if (observers.masked) {
+    std::uint64_t mask = (worked ? observers.workedMask : 0) | (paid ? observers.paidMask : 0) | (times ? observers.timesMask : 0);
+    for (int j = 0; j < shiftCount; ++j) mask |= observers.shiftMask[static_cast<size_t>(shifts[static_cast<size_t>(j)])];
+    for (; mask != 0; mask &= mask - 1) asked[n++] = static_cast<std::uint32_t>(std::countr_zero(mask));
+    return n;
+  }
+  if (++askStamp_ == 0) std::fill(askedStamp_.begin(), askedStamp_.end(), 0), askStamp_ = 1;  // wrapped around
+  auto ask = [&](const std::vector<std::uint32_t>& rules) {
+    for (const std::uint32_t k : rules)
+      if (askedStamp_[k] != askStamp_) askedStamp_[k] = askStamp_, asked[n++] = k;
+  };
+  for (int j = 0; j < shiftCount; ++j) ask(observers.byShift[static_cast<size_t>(shifts[static_cast<size_t>(j)])]);
   if (worked) ask(observers.worked);
   if (paid) ask(observers.paid);
   if (times) ask(observers.times);
-  // In declaration order, so the bounded try meets rules in the same order every time.
-  std::sort(asked_.begin(), asked_.begin() + n);
+  std::sort(asked, asked + n);
   return n;
+}
+
+bool Evaluator::overLimit(const Limit* limit, const Tally& least) {
+  return limit && least.weighed(limit->hardWeight) > limit->value + kLimitMargin;
+}
+
+bool Evaluator::scoreRowChange(int i, const Limit* limit, Tally& least, Tally& change) {
+  PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
+  const StaffIdx s = pr.staff;
+  const CellChange* changes = &rowChanges_[static_cast<size_t>(i) * Move::kCapacity];
+  const auto& sequence = rules_->sequenceRulesFor(s);
+  const size_t rulesPerRow = rules_->maxSequenceRules();
+  const std::uint32_t* asked = &asked_[static_cast<size_t>(i) * rulesPerRow];
+  Tally* after = &newRuleTally_[static_cast<size_t>(i) * rulesPerRow];
+  const Tally* before = &ruleTally_[static_cast<size_t>(s) * rulesPerRow];
+  const rules::RowView row = loadedView(s);  // sees the patch below
+  auto patch = [&] {
+    for (int j = 0; j < pr.changes; ++j) {
+      saved_[static_cast<size_t>(j)] = SavedDay{changes[j].day, roster_.at(s, changes[j].day)};
+      setLoadedDay(s, changes[j].day, changes[j].task);
+    }
+  };
+  auto unpatch = [&] {
+    for (int j = pr.changes - 1; j >= 0; --j) setLoadedDay(s, saved_[static_cast<size_t>(j)].day, saved_[static_cast<size_t>(j)].task);
+  };
+  auto noteFairCounts = [&] {
+    const auto& fair = rules_->fairShares();
+    for (size_t r = 0; r < fair.size(); ++r) {
+      const int member = fair[r].memberIndex(s);
+      if (member < 0) continue;
+      const int count = fair[r].countRow(row);
+      if (count != fairCount_[r][static_cast<size_t>(member)])
+        pendingFair_[r][static_cast<size_t>(pendingFairCount_[r]++)] = PendingFair{member, count};
+    }
+  };
+  change = Tally{};
+
+  // Each rule re-scores only the anchors the changed days reach. Runs of changed days are each
+  // asked for their reach; a reach reads only days outside its run, so where there is one
+  // run, asking before the change is enough, else it is asked after it too.
+  std::array<rules::AnchorSpan, Move::kCapacity> runs;  // first and last day of each run
+  int runCount = 0;
+  for (int a = 0; a < pr.changes;) {
+    int b = a;
+    while (b + 1 < pr.changes && changes[b + 1].day == changes[b].day + 1) ++b;
+    runs[static_cast<size_t>(runCount++)] = {changes[a].day, changes[b].day};
+    a = b + 1;
+  }
+  const bool oneRun = runCount == 1;
+  auto addReach = [&](int q) {
+    const rules::RowRule& rule = *sequence[asked[q]];
+    rules::AnchorSpan* spans = &spans_[static_cast<size_t>(q) * kSpansPerRule];
+    int& n = spanCount_[static_cast<size_t>(q)];
+    for (int r = 0; r < runCount; ++r) {
+      const rules::AnchorSpan reach = rule.reach(row, runs[static_cast<size_t>(r)].first, runs[static_cast<size_t>(r)].last);
+      if (!reach.empty()) spans[n++] = reach;
+    }
+  };
+  for (int q = 0; q < pr.asked; ++q) {
+    spanCount_[static_cast<size_t>(q)] = 0;
+    addReach(q);
+  }
+  patch();
+  bool rejected = false;
+  for (int q = 0; q < pr.asked && !rejected; ++q) {
+    if (!oneRun) addReach(q);
+    rules::AnchorSpan* spans = &spans_[static_cast<size_t>(q) * kSpansPerRule];
+    int& n = spanCount_[static_cast<size_t>(q)];
+    n = mergeSpans(spans, n);
+    Tally part;
+    for (int j = 0; j < n; ++j) sequence[asked[q]]->score(row, spans[j], part, nullptr);
+    after[q] = part;  // the new terms for now; the rest of the total below
+    // The rule's new total is at least what its re-scored terms come to.
+    least += part;
+    rejected = overLimit(limit, least);
+  }
+  if (!rejected) noteFairCounts();
+  unpatch();
+  if (rejected) return false;
+  for (int q = 0; q < pr.asked; ++q) {
+    const std::uint32_t k = asked[q];
+    Tally removed;  // the old terms; none where the rule cost nothing
+    if (!(before[k] == Tally{})) {
+      const rules::AnchorSpan* spans = &spans_[static_cast<size_t>(q) * kSpansPerRule];
+      for (int j = 0; j < spanCount_[static_cast<size_t>(q)]; ++j) sequence[k]->score(row, spans[j], removed, nullptr);
+    }
+    const Tally part = after[q];
+    after[q] = before[k] - removed + part;
+    change += after[q] - before[k];
+    least += before[k] - removed;  // the terms no change reached
+  }
+  return !overLimit(limit, least);
 }
 
 Tally Evaluator::tryMove(const Move& move) {
@@ -308,95 +423,28 @@ bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
     for (; at > 0 && changes[at - 1].day > c.day; --at) changes[at] = changes[at - 1];
     changes[at] = c;
   }
-  // With a limit: the least the total can still come to. Sequence rules not scored yet add
-  // nothing below zero, and fair share can at most fall to zero.
+  // The rules that can see each row's changes. With a limit: the least the total can still
+  // come to, each rule asked counted at zero until it is scored (as fair share, which can at
+  // most fall to zero).
+  const size_t rulesPerRow = rules_->maxSequenceRules();
   Tally least = total_ + delta;
-  if (limit) {
-    for (int i = 0; i < pendingRowCount_; ++i) {
-      const PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
-      least += pr.cells - rowTally_[static_cast<size_t>(pr.staff)];
-    }
-    for (const Tally& t : fairTally_) least -= t;
-  }
-  auto over = [&] { return limit && least.weighed(limit->hardWeight) > limit->value + kLimitMargin; };
-
   for (int i = 0; i < pendingRowCount_; ++i) {
     PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
-    const StaffIdx s = pr.staff;
-    const CellChange* changes = &rowChanges_[static_cast<size_t>(i) * Move::kCapacity];
-    const auto& sequence = rules_->sequenceRulesFor(s);
-    const int asked = rulesToAsk(s, changes, pr.changes);
-    const rules::RowView row = loadedView(s);  // sees every patch below
-    // Runs of changed days, each asked for its reach before and after the change. A reach
-    // reads only days outside its run, so where there is one run, asking once is enough.
-    auto forEachChangedRun = [&](auto&& onRun) {
-      for (int a = 0; a < pr.changes;) {
-        int b = a;
-        while (b + 1 < pr.changes && changes[b + 1].day == changes[b].day + 1) ++b;
-        onRun(changes[a].day, changes[b].day);
-        a = b + 1;
-      }
-    };
-    const bool oneRun = changes[pr.changes - 1].day - changes[0].day == pr.changes - 1;
-    auto addReach = [&](int q) {
-      const rules::RowRule& rule = *sequence[asked_[static_cast<size_t>(q)]];
-      rules::AnchorSpan* spans = &spans_[static_cast<size_t>(q) * kSpansPerRule];
-      forEachChangedRun([&](DayIdx first, DayIdx last) {
-        const rules::AnchorSpan reach = rule.reach(row, first, last);
-        if (!reach.empty()) spans[spanCount_[static_cast<size_t>(q)]++] = reach;
-      });
-    };
-    // (a) The anchors each rule's terms have now; (b) the change made in place, the anchors
-    // after it, and the new terms scored; (c) the change undone and the old terms scored.
-    for (int q = 0; q < asked; ++q) {
-      spanCount_[static_cast<size_t>(q)] = 0;
-      addReach(q);
-    }
-    for (int j = 0; j < pr.changes; ++j) {
-      saved_[static_cast<size_t>(j)] = SavedDay{changes[j].day, roster_.at(s, changes[j].day)};
-      setLoadedDay(s, changes[j].day, changes[j].task);
-    }
-    Tally added;
-    bool rejected = false;
-    for (int q = 0; q < asked && !rejected; ++q) {
-      if (!oneRun) addReach(q);
-      rules::AnchorSpan* spans = &spans_[static_cast<size_t>(q) * kSpansPerRule];
-      int& n = spanCount_[static_cast<size_t>(q)];
-      n = mergeSpans(spans, n);
-      Tally part;
-      const rules::RowRule& rule = *sequence[asked_[static_cast<size_t>(q)]];
-      for (int j = 0; j < n; ++j) rule.score(row, spans[j], part, nullptr);
-      added += part;
-      if (limit) {
-        // A rule's new total is at least what its re-scored terms come to.
-        least += part;
-        rejected = over();
-      }
-    }
-    if (!rejected)
-      for (size_t r = 0; r < fair.size(); ++r) {
-        const int member = fair[r].memberIndex(s);
-        if (member < 0) continue;
-        const int count = fair[r].countRow(row);
-        if (count != fairCount_[r][static_cast<size_t>(member)])
-          pendingFair_[r][static_cast<size_t>(pendingFairCount_[r]++)] = PendingFair{member, count};
-      }
-    for (int j = pr.changes - 1; j >= 0; --j) setLoadedDay(s, saved_[static_cast<size_t>(j)].day, saved_[static_cast<size_t>(j)].task);
-    if (rejected) return false;
-    Tally removed;
-    for (int q = 0; q < asked; ++q) {
-      const rules::RowRule& rule = *sequence[asked_[static_cast<size_t>(q)]];
-      const rules::AnchorSpan* spans = &spans_[static_cast<size_t>(q) * kSpansPerRule];
-      for (int j = 0; j < spanCount_[static_cast<size_t>(q)]; ++j) rule.score(row, spans[j], removed, nullptr);
-    }
-    const Tally oldSequence = rowTally_[static_cast<size_t>(s)] - rowCells_[static_cast<size_t>(s)];
-    const Tally newSequence = oldSequence - removed + added;
-    pr.tally = pr.cells + newSequence;
-    delta += pr.tally - rowTally_[static_cast<size_t>(s)];
-    if (limit) {
-      least += newSequence - added;  // the terms no change reached
-      if (over()) return false;
-    }
+    std::uint32_t* asked = &asked_[static_cast<size_t>(i) * rulesPerRow];
+    pr.asked = rulesToAsk(pr.staff, &rowChanges_[static_cast<size_t>(i) * Move::kCapacity], pr.changes, asked);
+    if (!limit) continue;
+    least += pr.cells - rowCells_[static_cast<size_t>(pr.staff)];
+    const Tally* before = &ruleTally_[static_cast<size_t>(pr.staff) * rulesPerRow];
+    for (int q = 0; q < pr.asked; ++q) least -= before[asked[q]];
+  }
+  if (limit)
+    for (const Tally& t : fairTally_) least -= t;
+  for (int i = 0; i < pendingRowCount_; ++i) {
+    PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
+    Tally change;
+    if (!scoreRowChange(i, limit, least, change)) return false;
+    pr.tally = rowTally_[static_cast<size_t>(pr.staff)] - rowCells_[static_cast<size_t>(pr.staff)] + change + pr.cells;
+    delta += pr.tally - rowTally_[static_cast<size_t>(pr.staff)];
   }
 
   // 3 - Fair share: the mean moves with any count, so the group is re-scored whole.
@@ -431,10 +479,14 @@ void Evaluator::commit() {
     setLoadedDay(c.staff, c.day, c.task);
   }
   coverTotal_ += pendingCover_;
+  const size_t rulesPerRow = rules_->maxSequenceRules();
   for (int i = 0; i < pendingRowCount_; ++i) {
     const PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
     rowTally_[static_cast<size_t>(pr.staff)] = pr.tally;
     rowCells_[static_cast<size_t>(pr.staff)] = pr.cells;
+    for (int q = 0; q < pr.asked; ++q)
+      ruleTally_[static_cast<size_t>(pr.staff) * rulesPerRow + asked_[static_cast<size_t>(i) * rulesPerRow + static_cast<size_t>(q)]] =
+          newRuleTally_[static_cast<size_t>(i) * rulesPerRow + static_cast<size_t>(q)];
   }
   const auto& fair = rules_->fairShares();
   for (size_t r = 0; r < fair.size(); ++r) {

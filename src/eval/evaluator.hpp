@@ -93,6 +93,7 @@ class Evaluator {
   std::vector<rules::RowTotals> rowTotals_;
   std::vector<Tally> rowTally_;
   std::vector<Tally> rowCells_;  ///< the cell-local part of rowTally_
+  std::vector<Tally> ruleTally_;  ///< staff * maxSequenceRules: each sequence rule's total
   std::vector<int> coverCount_;                 ///< [day * tasks + task]
   std::vector<std::vector<int>> fairCount_;     ///< per fair-share rule, per member
   std::vector<long> fairSum_;
@@ -105,13 +106,20 @@ class Evaluator {
     StaffIdx staff;
     Tally tally, cells;
     int changes;  ///< its cells are rowChanges_[row * kCapacity, + changes), by day
+    int asked;    ///< rules asked about them
   };
   std::array<PendingRow, Move::kCapacity> pendingRows_{};
   std::array<CellChange, Move::kCapacity * Move::kCapacity> rowChanges_{};
   std::array<SavedDay, Move::kCapacity> saved_{};
-  /// Collects, into asked_, the sequence rules of person s that can see the row's changes.
-  int rulesToAsk(StaffIdx s, const CellChange* changes, int count);
-  std::vector<std::uint32_t> asked_, askedStamp_;
+  /// Collects into `asked` the sequence rules of person s that can see the row's changes, in order.
+  int rulesToAsk(StaffIdx s, const CellChange* changes, int count, std::uint32_t* asked);
+  /// Scores pending row i's changes into `change` (its sequence rules' new total minus the
+  /// old), raising `least` as it goes; false once `least` proves the move over `limit`.
+  bool scoreRowChange(int i, const Limit* limit, Tally& least, Tally& change);
+  static bool overLimit(const Limit* limit, const Tally& least);
+  std::vector<std::uint32_t> asked_;      ///< per pending row, the rules asked (rulesPerRow each)
+  std::vector<Tally> newRuleTally_;       ///< per pending row, those rules' new totals
+  std::vector<std::uint32_t> askedStamp_;
   std::uint32_t askStamp_ = 0;
   std::vector<rules::AnchorSpan> spans_;  ///< per rule asked, the anchors to re-score
   std::vector<int> spanCount_;

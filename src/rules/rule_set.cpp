@@ -80,6 +80,15 @@ RuleSet::RuleSet(const model::Problem& problem)
         if (sh != kNoShift && (o.byShift[static_cast<size_t>(sh)].empty() || o.byShift[static_cast<size_t>(sh)].back() != k))
           o.byShift[static_cast<size_t>(sh)].push_back(k);
     }
+    o.masked = sequence_[s].size() <= 64;
+    if (!o.masked) continue;
+    auto mask = [](const std::vector<std::uint32_t>& rules) {
+      std::uint64_t m = 0;
+      for (const std::uint32_t k : rules) m |= std::uint64_t{1} << k;
+      return m;
+    };
+    o.workedMask = mask(o.worked), o.paidMask = mask(o.paid), o.timesMask = mask(o.times);
+    for (const auto& rules : o.byShift) o.shiftMask.push_back(mask(rules));
   }
   tabulateCellRules();
 }

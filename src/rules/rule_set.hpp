@@ -21,6 +21,10 @@ std::unique_ptr<RowRule> makeRowRule(const model::RuleSpec& spec);
 struct RuleObservers {
   std::vector<std::vector<std::uint32_t>> byShift;  ///< [shift]: rules reading which days hold it
   std::vector<std::uint32_t> worked, paid, times;
+  /// The same as bit sets, where the person has at most 64 sequence rules (bit k: rule k).
+  bool masked = false;
+  std::vector<std::uint64_t> shiftMask;
+  std::uint64_t workedMask = 0, paidMask = 0, timesMask = 0;
 };
 
 class RuleSet {
