@@ -27,9 +27,15 @@ void ProgressPrinter::operator()(const search::Progress& p) {
 
 void ProgressPrinter::finish(const search::SolveResult& r) const {
   if (quiet_) return;
-  std::fprintf(stderr, "%sdone in %.1f s, %ld generations (stopped: %s); seed %llu, %d islands on %d threads\n"
+  std::string phases;
+  for (const search::PhaseTime& phase : r.phases) {
+    char text[64];
+    std::snprintf(text, sizeof text, "%s%s %.1f s", phases.empty() ? "" : ", ", phase.name, phase.seconds);
+    phases += text;
+  }
+  std::fprintf(stderr, "%sdone in %.1f s (%s), %ld generations (stopped: %s); seed %llu, %d islands on %d threads\n"
                "best roster: hard %s, soft %s\n",
-               terminal_ ? "\r\033[K" : "", r.seconds, r.generations, r.stopReason.c_str(),
+               terminal_ ? "\r\033[K" : "", r.seconds, phases.c_str(), r.generations, r.stopReason.c_str(),
                static_cast<unsigned long long>(r.seed), r.islands, r.threads, report::pointsText(r.score.hard).c_str(),
                report::pointsText(r.score.soft).c_str());
 }

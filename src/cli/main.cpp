@@ -3,9 +3,12 @@
 
 #include "cli/commands.hpp"
 #include "io/input_error.hpp"
+#include "search/stop_signal.hpp"
 
 int main(int argc, char** argv) {
   using namespace rotaweave;
+  // From the start, so that Ctrl-C while a large scenario loads still ends with outputs.
+  search::installStopSignals();
   try {
     return cli::run(cli::parseCommandLine(argc, argv));
   } catch (const cli::UsageError& e) {

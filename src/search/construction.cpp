@@ -1,6 +1,8 @@
 /// @brief Construction heuristics.
 #include "search/construction.hpp"
 
+#include "search/stop_signal.hpp"
+
 #include <algorithm>
 #include <vector>
 
@@ -27,7 +29,7 @@ void greedyRoster(const Eligibility& e, eval::Evaluator& ev, Rng& rng, double no
 
   std::vector<std::pair<int, TaskIdx>> cells;  // (candidates, task) for the day
   eval::Move move;
-  for (DayIdx d = 0; d < p.days && std::chrono::steady_clock::now() < deadline; ++d) {
+  for (DayIdx d = 0; d < p.days && std::chrono::steady_clock::now() < deadline && !stopRequested(); ++d) {
     cells.clear();
     for (TaskIdx t = 1; t < p.taskCount(); ++t) {
       if (!p.demandAt(d, t).defined) continue;

@@ -48,6 +48,8 @@ void lateAcceptance(const Eligibility& e, eval::Evaluator& ev, Rng& rng, int mov
         ev.tryMove(undo);
         ev.commit();
       }
+      // A chain tries a move per day for each of its people: on a long horizon, thousands.
+      if (std::chrono::steady_clock::now() >= settings.deadline || stopRequested()) break;
     } else {
       randomMove(e, ev.roster(), rng, move);
       if (move.size > 0 && ev.tryMoveWithin(move, w, limit)) ev.commit();
