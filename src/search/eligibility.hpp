@@ -1,5 +1,6 @@
 /// @brief The tasks each (person, day) cell may take, so every genome respects absences,
-/// fixed cells and skills by construction. Immutable; shared by all islands.
+/// fixed cells, skills and hard limits of no shifts of a type by construction. Immutable;
+/// shared by all islands.
 #pragma once
 #include <vector>
 
