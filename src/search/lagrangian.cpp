@@ -72,11 +72,6 @@ bool forEach(std::vector<RowRefit>& refits, int count, std::chrono::steady_clock
   return !late;
 }
 
-/// Writes a re-fitted window of row s into `roster`.
-void writeRow(model::Roster& roster, const eval::Move& move) {
-  for (const auto& c : move) roster.at(c.staff, c.day) = c.task;
-}
-
 /// Keeps the best `keep` distinct rosters seen, best first.
 void remember(std::vector<std::pair<double, model::Roster>>& kept, int keep, double value, const model::Roster& roster) {
   if (keep <= 0) return;
@@ -112,13 +107,13 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, std
   for (RowRefit& refit : refits) refit.setDeadline(deadline);
   const int group = repairGroup(people);
   std::vector<double> rowCost(static_cast<size_t>(people), 0.0);
-  std::vector<eval::Move> groupMoves(static_cast<size_t>(group) * static_cast<size_t>((p.days + RowRefit::kMaxWindow - 1) / RowRefit::kMaxWindow));
+  std::vector<RowChange> groupChanges(static_cast<size_t>(group)), pricedChanges(static_cast<size_t>(people));
 
   model::Roster start(people, p.days);  // each cell's first option: off unless the cell is fixed
   for (StaffIdx s = 0; s < people; ++s)
     for (DayIdx d = 0; d < p.days; ++d) start.at(s, d) = *e.begin(s, d);
   ev.load(start);
-  model::Roster working = start;  // rows being re-fitted; each thread writes only its own
+  model::Roster working = start;  // rows being priced; each thread writes only its own
   double bestPrimal = INFINITY, bestDual = -INFINITY, scale = 1.0;
   int sinceBetter = 0;
   rounds = static_cast<int>(std::min<long>(rounds, std::max<long>(1, kPersonRounds / std::max(people, 1))));
@@ -129,16 +124,10 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, std
     working = ev.roster();
     const bool priced = forEach(refits, people, deadline, [&](int i, RowRefit& refit) {
       const StaffIdx s = order[static_cast<size_t>(i)];
-      eval::Move move;
-      double& total = rowCost[static_cast<size_t>(s)];
-      total = 0;
-      for (DayIdx first = 0; first < p.days; first += RowRefit::kMaxWindow) {
-        double cost = 0;
-        if (!refit.refitAtPrices(working, s, first, std::min(RowRefit::kMaxWindow, p.days - first), price.data(), hardWeight, move, cost))
-          continue;
-        total += cost;
-        writeRow(working, move);
-      }
+      RowChange& change = pricedChanges[static_cast<size_t>(s)];
+      double& cost = rowCost[static_cast<size_t>(s)];
+      cost = 0;
+      if (refit.refitAtPrices(working, s, 0, p.days, price.data(), hardWeight, change, cost)) writeRowChange(working, change);
     });
     if (!priced) break;  // out of time: this round's rows are unfinished
     double rowsCost = 0;
@@ -169,27 +158,14 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, std
     // deadline still gives a whole roster.
     for (int pass = 0; pass < kRepairPasses; ++pass) {
       rng.shuffle(order);
-      working = ev.roster();
       for (int from = 0; from < people; from += group) {
         const int count = std::min(group, people - from);
-        const int windows = static_cast<int>(groupMoves.size()) / group;
         if (!forEach(refits, count, deadline, [&](int slot, RowRefit& refit) {
-              const StaffIdx s = order[static_cast<size_t>(from + slot)];
-              for (int w = 0; w < windows; ++w) {
-                eval::Move& move = groupMoves[static_cast<size_t>(slot * windows + w)];
-                move.clear();
-                const DayIdx first = w * RowRefit::kMaxWindow;
-                if (first < p.days && refit.refit(working, ev, s, first, std::min(RowRefit::kMaxWindow, p.days - first), nullptr, hardWeight, move))
-                  writeRow(working, move);
-              }
+              RowChange& change = groupChanges[static_cast<size_t>(slot)];
+              if (!refit.refit(ev, order[static_cast<size_t>(from + slot)], 0, p.days, nullptr, hardWeight, change)) change.clear();
             }))
           break;
-        for (const eval::Move& move : groupMoves)
-          if (move.size > 0) {
-            ev.tryMove(move);
-            ev.commit();
-          }
-        for (eval::Move& move : groupMoves) move.clear();
+        for (int slot = 0; slot < count; ++slot) applyRowChange(ev, groupChanges[static_cast<size_t>(slot)]);
       }
     }
     rows.addRows(ev.roster());

@@ -8,15 +8,17 @@ namespace rotaweave::search {
 namespace {
 
 /// Applies a re-fitted row and records what it replaced.
-void applyRow(eval::Evaluator& ev, const eval::Move& move, RefitUndo& undo) {
-  if (move.size == 0) return;
+void applyRow(eval::Evaluator& ev, const RowChange& change, RefitUndo& undo) {
+  if (change.empty()) return;
   if (undo.size == static_cast<int>(undo.rows.size())) undo.rows.emplace_back();
-  eval::Move& back = undo.rows[static_cast<size_t>(undo.size++)];
+  RowChange& back = undo.rows[static_cast<size_t>(undo.size++)];
   back.clear();
-  for (const auto& cell : move) back.add(cell.staff, cell.day, ev.roster().at(cell.staff, cell.day));
-  ev.tryMove(move);
-  ev.commit();
+  for (const auto& cell : change.cells) back.cells.push_back(eval::CellChange{cell.staff, cell.day, ev.roster().at(cell.staff, cell.day)});
+  applyRowChange(ev, change);
 }
+
+/// The longest stretch of days a chain re-fits: local, so a chain stays a cheap move.
+constexpr int kChainWindow = eval::Move::kCapacity;
 
 }  // namespace
 
@@ -30,14 +32,14 @@ bool refitChain(const Eligibility& e, eval::Evaluator& ev, RowRefit& refit, Rng&
   const StaffIdx s = cell / p.days;
   const DayIdx flip = cell % p.days;
   // The window: the whole period if it fits in one move, else a stretch around the forced day.
-  const int length = std::min(p.days, RowRefit::kMaxWindow);
+  const int length = std::min(p.days, kChainWindow);
   const DayIdx first = std::clamp(flip - length / 2, 0, p.days - length);
 
   auto& needs = undo.needs;
   needs.assign(static_cast<size_t>(p.days), RowRefit::kAnyTask);
   needs[static_cast<size_t>(flip)] = ev.roster().at(s, flip) == kOff ? RowRefit::kAnyShift : kOff;
-  eval::Move move;
-  if (refit.refit(ev, s, first, length, needs.data(), hardWeight, move)) applyRow(ev, move, undo);
+  RowChange& change = undo.change;
+  if (refit.refit(ev, s, first, length, needs.data(), hardWeight, change)) applyRow(ev, change, undo);
   if (undo.size == 0) return false;
   auto& order = undo.order;
   order.clear();
@@ -46,16 +48,13 @@ bool refitChain(const Eligibility& e, eval::Evaluator& ev, RowRefit& refit, Rng&
   for (int pass = 0; pass < passes; ++pass) {
     rng.shuffle(order);
     for (const StaffIdx other : order)
-      if (refit.refit(ev, other, first, length, nullptr, hardWeight, move)) applyRow(ev, move, undo);
+      if (refit.refit(ev, other, first, length, nullptr, hardWeight, change)) applyRow(ev, change, undo);
   }
   return true;
 }
 
 void undoRefitChain(eval::Evaluator& ev, const RefitUndo& undo) {
-  for (int i = undo.size - 1; i >= 0; --i) {
-    ev.tryMove(undo.rows[static_cast<size_t>(i)]);
-    ev.commit();
-  }
+  for (int i = undo.size - 1; i >= 0; --i) applyRowChange(ev, undo.rows[static_cast<size_t>(i)]);
 }
 
 }  // namespace rotaweave::search

@@ -17,10 +17,11 @@ namespace rotaweave::search {
 /// The previous cells of every row a chain changed, in the order they changed.
 /// Reused from chain to chain, so a chain allocates nothing once the buffers have grown.
 struct RefitUndo {
-  std::vector<eval::Move> rows;
+  std::vector<RowChange> rows;
   int size = 0;
   std::vector<StaffIdx> order;  ///< scratch: the order people answer in
   std::vector<TaskIdx> needs;       ///< scratch: the forced day
+  RowChange change;                 ///< scratch: a re-fit
 };
 
 /// Runs one chain on the roster loaded in `ev`: one forced re-fit, then `passes` rounds in

@@ -138,22 +138,22 @@ void RowRefit::packKey(Label& label) {
 }
 
 bool RowRefit::refit(const model::Roster& roster, const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length,
-                     const TaskIdx* needs, double hardWeight, eval::Move& move) {
+                     const TaskIdx* needs, double hardWeight, RowChange& change) {
   double cost = 0;
-  return cheapestRow(roster, &ev, s, first, length, needs, nullptr, hardWeight, move, cost);
+  return cheapestRow(roster, &ev, s, first, length, needs, nullptr, hardWeight, change, cost);
 }
 
 bool RowRefit::refitAtPrices(const model::Roster& roster, StaffIdx s, DayIdx first, int length, const double* prices,
-                             double hardWeight, eval::Move& move, double& cost) {
-  return cheapestRow(roster, nullptr, s, first, length, nullptr, prices, hardWeight, move, cost);
+                             double hardWeight, RowChange& change, double& cost) {
+  return cheapestRow(roster, nullptr, s, first, length, nullptr, prices, hardWeight, change, cost);
 }
 
 bool RowRefit::cheapestRow(const model::Roster& roster, const eval::Evaluator* ev, StaffIdx s, DayIdx first, int length,
-                           const TaskIdx* needs, const double* prices, double hardWeight, eval::Move& move, double& cost) {
-  move.clear();
+                           const TaskIdx* needs, const double* prices, double hardWeight, RowChange& change, double& cost) {
+  change.clear();
   const Limits& lim = limits_[static_cast<size_t>(s)];
   const rules::CoverRule& cover = rules_->cover();
-  const DayIdx end = std::min(first + std::min(length, kMaxWindow), p_->days);
+  const DayIdx end = std::min(first + length, p_->days);
   if (end <= first) return false;
 
   // The state before the window: history, then the unchanged days in front of it.
@@ -195,10 +195,13 @@ bool RowRefit::cheapestRow(const model::Roster& roster, const eval::Evaluator* e
       mostPaid_[static_cast<size_t>(d - first)] = mostPaid_[static_cast<size_t>(d - first + 1)] + most;
     }
   }
-  // Labels a day keeps: the budget of extensions per day over the most options a day has.
+  // Labels a day keeps: within the call's budgets of extensions (per day, over the most
+  // options a day has) and of labels kept for the walk back.
   int options = 1;
   for (DayIdx d = first; d < end; ++d) options = std::max(options, e_->count(s, d));
-  const int beam = std::clamp(kExtensionsPerDay / options, std::min(kMinBeam, beam_), beam_);
+  const long days = end - first;
+  const long budget = std::min(kExtensionsPerCall / (days * options), kLabelsPerCall / days);
+  const int beam = static_cast<int>(std::clamp<long>(budget, std::min(kMinBeam, beam_), beam_));
   size_t layerBegin = 0;  // the previous day's labels are labels_[layerBegin, end)
   for (DayIdx d = first; d < end; ++d) {
     if (std::chrono::steady_clock::now() >= deadline_ || stopRequested()) return false;
@@ -256,8 +259,9 @@ bool RowRefit::cheapestRow(const model::Roster& roster, const eval::Evaluator* e
   DayIdx d = end - 1;
   for (int i = best; labels_[static_cast<size_t>(i)].parent >= 0; i = labels_[static_cast<size_t>(i)].parent, --d) {
     const TaskIdx t = labels_[static_cast<size_t>(i)].task;
-    if (roster.at(s, d) != t) move.add(s, d, t);
+    if (roster.at(s, d) != t) change.cells.push_back(eval::CellChange{s, d, t});
   }
+  std::reverse(change.cells.begin(), change.cells.end());
   return true;
 }
 

@@ -21,14 +21,12 @@
 
 #include "eval/evaluator.hpp"
 #include "search/eligibility.hpp"
+#include "search/row_change.hpp"
 
 namespace rotaweave::search {
 
 class RowRefit {
  public:
-  /// Longest stretch of days one re-fit rewrites (one move's worth of cells).
-  static constexpr int kMaxWindow = eval::Move::kCapacity;
-
   RowRefit(const rules::RuleSet& rules, const Eligibility& e);
 
   /// What a re-fit must put on a day, besides one task (kOff for a day off): anything, or
@@ -36,41 +34,42 @@ class RowRefit {
   static constexpr TaskIdx kAnyTask = -1, kAnyShift = -2;
 
   /// Finds the cheapest row for person s on days [first, first + length) of the roster loaded in
-  /// `ev`, weighing hard cost by `hardWeight`, and writes it into `move` (only the cells that
+  /// `ev`, weighing hard cost by `hardWeight`, and writes it into `change` (only the cells that
   /// change). `needs` (per period day; nullptr for none) says what days must hold.
   /// Returns false if no row satisfies them and the modelled rules.
   bool refit(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const TaskIdx* needs, double hardWeight,
-             eval::Move& move) {
-    return refit(ev.roster(), ev, s, first, length, needs, hardWeight, move);
+             RowChange& change) {
+    return refit(ev.roster(), ev, s, first, length, needs, hardWeight, change);
   }
   /// The same with person s's row read from `roster`, which may differ from ev's on days
   /// outside the window (earlier windows of the row re-fitted but not applied yet) and in
   /// other people's rows; cover is ev's.
   bool refit(const model::Roster& roster, const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length,
-             const TaskIdx* needs, double hardWeight, eval::Move& move);
+             const TaskIdx* needs, double hardWeight, RowChange& change);
   /// Like refit, but a worked cell costs its price, `prices[day * tasks + task]`, instead of the
   /// change in cover it makes: the others' cells do not matter. Sets `cost` to the cheapest
   /// row's cost (cell-local rules plus prices).
   bool refitAtPrices(const eval::Evaluator& ev, StaffIdx s, DayIdx first, int length, const double* prices,
-                     double hardWeight, eval::Move& move, double& cost) {
-    return refitAtPrices(ev.roster(), s, first, length, prices, hardWeight, move, cost);
+                     double hardWeight, RowChange& change, double& cost) {
+    return refitAtPrices(ev.roster(), s, first, length, prices, hardWeight, change, cost);
   }
   /// The same on any roster: only person s's row is read, so re-fits of different people may
   /// run at once on one roster (each on its own RowRefit) while each writes only its own row.
   bool refitAtPrices(const model::Roster& roster, StaffIdx s, DayIdx first, int length, const double* prices,
-                     double hardWeight, eval::Move& move, double& cost);
+                     double hardWeight, RowChange& change, double& cost);
 
   /// Whether the last call kept every label (its row is then the cheapest there is).
   bool lastWasExact() const { return exact_; }
   /// Calls return false (no row) once `deadline` passes or a stop is requested.
   void setDeadline(std::chrono::steady_clock::time_point deadline) { deadline_ = deadline; }
-  /// Most labels one day may keep, at least 1 (default kMaxBeam). A day keeps fewer where it
-  /// has many options, so that it extends at most about kExtensionsPerDay labels.
+  /// Most labels one day may keep, at least 1 (default kMaxBeam). A day keeps fewer where a
+  /// call would extend more than kExtensionsPerCall labels or keep more than kLabelsPerCall.
   void setBeamWidth(int labels) { beam_ = labels > 0 ? labels : 1; }
 
-  static constexpr int kMaxBeam = 4096;    ///< keeps Instances 1-12 of the benchmark exact
+  static constexpr int kMaxBeam = 4096;    ///< keeps Instances 1-4 of the benchmark exact, and most rows of 5-12
   static constexpr int kMinBeam = 64;
-  static constexpr int kExtensionsPerDay = 1 << 15;
+  static constexpr long kExtensionsPerCall = 1L << 20;  ///< about 10-20 ms of work
+  static constexpr long kLabelsPerCall = 1L << 18;      ///< 16 MB of labels for the walk back
 
  private:
   /// The hard row rules of one person that the search models; unset bounds are "none".
@@ -110,9 +109,9 @@ class RowRefit {
   bool joinsSuffix(const Limits& lim, const State& st, const model::Roster& roster, StaffIdx s, DayIdx end) const;
   static void packKey(Label& label);
   /// The shortest path behind refit and refitAtPrices: cover priced by `prices`, or, when they
-  /// are null, by the cover counts of `ev` (then `roster` is ev's).
+  /// are null, by the cover counts of `ev`.
   bool cheapestRow(const model::Roster& roster, const eval::Evaluator* ev, StaffIdx s, DayIdx first, int length,
-                   const TaskIdx* needs, const double* prices, double hardWeight, eval::Move& move, double& cost);
+                   const TaskIdx* needs, const double* prices, double hardWeight, RowChange& change, double& cost);
 
   const rules::RuleSet* rules_;
   const model::Problem* p_;

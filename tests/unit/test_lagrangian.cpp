@@ -32,13 +32,10 @@ struct Setup : test::RowRulesSetup {
     model::Roster r(p.staffCount(), p.days);
     search::randomRoster(e, r, 0.5, rng);
     ev.load(r);
-    eval::Move move;
+    search::RowChange change;
     for (int pass = 0; pass < 3; ++pass)
       for (StaffIdx s = 0; s < p.staffCount(); ++s)
-        if (refit.refit(ev, s, 0, p.days, nullptr, kWeight, move)) {
-          ev.tryMove(move);
-          ev.commit();
-        }
+        if (refit.refit(ev, s, 0, p.days, nullptr, kWeight, change)) search::applyRowChange(ev, change);
     return ev.roster();
   }
 };

@@ -15,6 +15,13 @@ using namespace rotaweave;
 
 namespace {
 
+/// A re-fit of this short scenario's rows fits in one move.
+eval::Move asMove(const search::RowChange& change) {
+  eval::Move move;
+  for (const auto& c : change.cells) REQUIRE(move.add(c.staff, c.day, c.task));
+  return move;
+}
+
 /// Hard penalty of everyone but s (all hard rules here are row rules).
 Cost othersHard(eval::Evaluator& ev, StaffIdx s) {
   Cost hard = 0;
@@ -81,11 +88,11 @@ TEST_SUITE("search") {
           CAPTURE(s);
           const Cost others = othersHard(ev, s);
           const rules::Tally best = bruteForce(e, ev, s, p.days, others);
-          eval::Move move;
-          const bool found = refit.refit(ev, s, 0, p.days, nullptr, 100.0, move);
+          search::RowChange change;
+          const bool found = refit.refit(ev, s, 0, p.days, nullptr, 100.0, change);
           REQUIRE(found == (best.hard == others));
           if (!found) continue;
-          const rules::Tally got = move.size ? ev.tryMove(move) : ev.total();
+          const rules::Tally got = change.empty() ? ev.total() : ev.tryMove(asMove(change));
           CHECK(got.hard == others);
           CHECK(got.soft == best.soft);
         }
@@ -121,14 +128,14 @@ TEST_SUITE("search") {
             for (double& price : prices) price = (12 * rng.uniform() - 6) * kCostScale;
             double best = INFINITY;
             for (const auto& row : rows) best = std::min(best, pricedCost(s, row, prices));
-            eval::Move move;
+            search::RowChange change;
             double cost = NAN;
-            const bool found = refit.refitAtPrices(ev, s, 0, p.days, prices.data(), kWeight, move, cost);
+            const bool found = refit.refitAtPrices(ev, s, 0, p.days, prices.data(), kWeight, change, cost);
             REQUIRE(found == !rows.empty());
             if (!found) continue;
             CHECK(cost == doctest::Approx(best).epsilon(1e-9).scale(kCostScale));
             std::vector<TaskIdx> row(ev.roster().row(s), ev.roster().row(s) + p.days);
-            for (const auto& c : move) row[static_cast<size_t>(c.day)] = c.task;
+            for (const auto& c : change.cells) row[static_cast<size_t>(c.day)] = c.task;
             CHECK(std::find(rows.begin(), rows.end(), row) != rows.end());
             CHECK(pricedCost(s, row, prices) == doctest::Approx(cost).epsilon(1e-9).scale(kCostScale));
           }
@@ -147,14 +154,14 @@ TEST_SUITE("search") {
       const DayIdx first = 1 + rng.below(3);
       std::vector<TaskIdx> needs(static_cast<size_t>(p.days), search::RowRefit::kAnyTask);
       needs[static_cast<size_t>(first + 1)] = ev.roster().at(s, first + 1) == kOff ? search::RowRefit::kAnyShift : kOff;
-      eval::Move move;
-      if (!refit.refit(ev, s, first, 4, needs.data(), 100.0, move)) continue;
-      for (const auto& c : move) CHECK((c.day >= first && c.day < first + 4));
+      search::RowChange change;
+      if (!refit.refit(ev, s, first, 4, needs.data(), 100.0, change)) continue;
+      for (const auto& c : change.cells) CHECK((c.day >= first && c.day < first + 4));
       bool flipped = false;  // the forced day goes from worked to off or from off to worked
-      for (const auto& c : move) flipped |= c.day == first + 1 && (c.task == kOff) != (ev.roster().at(s, c.day) == kOff);
+      for (const auto& c : change.cells) flipped |= c.day == first + 1 && (c.task == kOff) != (ev.roster().at(s, c.day) == kOff);
       CHECK(flipped);
       // Only the window changed, so the row's hard cost comes from rules it does not model: none here.
-      if (ev.total().hard == 0) CHECK(ev.tryMove(move).hard == 0);
+      if (ev.total().hard == 0) CHECK(ev.tryMove(asMove(change)).hard == 0);
     }
   }
 
