@@ -119,6 +119,14 @@ std::vector<rules::Breach> Evaluator::explain(const model::Roster& roster) {
   return out;
 }
 
+std::vector<rules::Breach> Evaluator::explainLoadedRow(StaffIdx s) const {
+  std::vector<rules::Breach> out;
+  const rules::RowView row = loadedView(s);
+  Tally ignored;
+  for (const rules::RowRule* rule : rules_->rulesFor(s)) rule->scoreRow(row, ignored, &out);
+  return out;
+}
+
 rules::RowView Evaluator::loadedView(StaffIdx s) const {
   const size_t base = static_cast<size_t>(s) * static_cast<size_t>(span_) + static_cast<size_t>(history_);
   return rules::RowView{p_, s, roster_.row(s), rowShift_.data() + base, rowStart_.data() + base, rowEnd_.data() + base,

@@ -53,6 +53,11 @@ class Evaluator {
 
   const rules::RuleSet& rules() const { return *rules_; }
 
+  /// Penalty of person s's row rules in the loaded roster (cell-local rules included).
+  const Tally& loadedRowTally(StaffIdx s) const { return rowTally_[static_cast<size_t>(s)]; }
+  /// The breaches of person s's row rules in the loaded roster.
+  std::vector<rules::Breach> explainLoadedRow(StaffIdx s) const;
+
  private:
   /// Penalty of a row: sequence rules scored on the row, cell-local rules read from the table.
   Tally rowTally(const rules::RowView& row) const { return cellSum(row.staff, row.tasks) + sequenceTally(row); }

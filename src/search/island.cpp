@@ -10,6 +10,17 @@
 
 namespace rotaweave::search {
 
+namespace {
+
+/// Rows of an island's best roster repaired after each epoch, and the days re-fitted around
+/// each breach: four weeks, so hours can move within a month.
+constexpr int kRepairRows = 16;
+constexpr int kRepairWindow = 28;
+/// A hard point outweighs this many soft ones while repairing.
+constexpr double kRepairHardWeight = 1000;
+
+}  // namespace
+
 Island::Island(const rules::RuleSet& rules, const Eligibility& eligibility, const SolverOptions& options, std::uint64_t seed)
     : eligibility_(&eligibility), options_(options), ev_(rules), rng_(seed), refit_(rules, eligibility) {
   lateScratch_.late.resize(50);
@@ -102,6 +113,16 @@ void Island::step() {
   // 6 - Replacement: the offspring become the population.
   std::swap(population_, offspring_);
   sortPopulation();
+}
+
+void Island::repairBest() {
+  Individual& best = population_.front();
+  if (best.score.hard == 0) return;
+  ev_.load(best.genome);
+  if (repairRows(ev_, refit_, rng_, kRepairHardWeight, kRepairWindow, kRepairRows, repairScratch_) == 0) return;
+  if (!(ev_.total() < best.score)) return;
+  best.genome.cells = ev_.roster().cells;
+  best.score = ev_.total();
 }
 
 std::vector<Individual> Island::emigrants(int k) const {

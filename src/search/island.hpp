@@ -12,6 +12,7 @@
 #include "search/local_search.hpp"
 #include "search/rng.hpp"
 #include "search/row_refit.hpp"
+#include "search/row_repair.hpp"
 #include "search/solver_options.hpp"
 
 namespace rotaweave::search {
@@ -33,6 +34,9 @@ class Island {
     return done;
   }
   const Individual& best() const { return population_.front(); }
+  /// Re-fits the rows of the best roster that break a hard rule, around a breach each; keeps
+  /// the result if it is better (search/row_repair.hpp).
+  void repairBest();
   /// Copies of the best k individuals.
   std::vector<Individual> emigrants(int k) const;
   /// Replaces the worst individuals with the immigrants, keeping the population sorted.
@@ -51,6 +55,7 @@ class Island {
   std::vector<int> parents_;
   LateAcceptanceScratch lateScratch_;
   RowRefit refit_;
+  RowRepairScratch repairScratch_;
   std::chrono::steady_clock::time_point deadline_ = std::chrono::steady_clock::time_point::max();
 };
 

@@ -119,7 +119,10 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
     if (options.generations > 0) epoch = static_cast<int>(std::min<long>(epoch, options.generations - generation));
     std::vector<int> done(static_cast<size_t>(result.islands), 0);
 #pragma omp parallel for num_threads(result.threads) schedule(dynamic, 1)
-    for (int i = 0; i < result.islands; ++i) done[static_cast<size_t>(i)] = islands[static_cast<size_t>(i)]->evolve(epoch, stopNow);
+    for (int i = 0; i < result.islands; ++i) {
+      done[static_cast<size_t>(i)] = islands[static_cast<size_t>(i)]->evolve(epoch, stopNow);
+      if (!stopNow()) islands[static_cast<size_t>(i)]->repairBest();
+    }
     generation += *std::max_element(done.begin(), done.end());
 
     // 5 - Migration on the ring, in island order so the outcome never depends on threads.
