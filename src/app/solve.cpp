@@ -25,7 +25,7 @@ Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::R
   const search::SolveResult result = search::solve(ruleSet, options, seeds, std::ref(printer));
   printer.finish(result);
   report::RunInfo run{command, result.seed, result.islands, result.threads, result.generations,
-                      result.seconds, result.stopReason, result.history};
+                      result.seconds, result.stopReason, result.history, result.lowerBound};
   return reportAndWrite(ruleSet, result.best, std::move(run), request.out);
 }
 

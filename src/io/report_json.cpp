@@ -28,6 +28,17 @@ std::string jsonString(const std::string& s) {
   return out + "\"";
 }
 
+namespace {
+
+std::string gapText(std::optional<double> gap) {
+  if (!gap) return "null";
+  char text[32];
+  std::snprintf(text, sizeof text, "%.2f", *gap);
+  return text;
+}
+
+}  // namespace
+
 std::string reportJson(const report::Report& r, const model::Problem& p) {
   using report::amountText;
   using report::pointsText;
@@ -36,7 +47,9 @@ std::string reportJson(const report::Report& r, const model::Problem& p) {
       << "  \"period\": {\"start\": \"" << p.dateText(0) << "\", \"end\": \"" << p.dateText(p.days - 1) << "\"},\n"
       << "  \"summary\": {\"hard\": " << pointsText(r.total.hard) << ", \"soft\": " << pointsText(r.total.soft)
       << ", \"violations\": " << r.breaches.size() << ", \"hard_violations\": " << r.hardCount
-      << ", \"soft_violations\": " << r.breaches.size() - static_cast<size_t>(r.hardCount) << "},\n";
+      << ", \"soft_violations\": " << r.breaches.size() - static_cast<size_t>(r.hardCount)
+      << ", \"lower_bound\": " << (r.run.lowerBound ? report::boundPointsText(*r.run.lowerBound) : std::string("null"))
+      << ", \"gap_percent\": " << gapText(report::gapPercent(r)) << "},\n";
   out << "  \"run\": {\"command\": " << jsonString(r.run.command) << ", \"seed\": " << r.run.seed << ", \"islands\": " << r.run.islands
       << ", \"threads\": " << r.run.threads << ", \"generations\": " << r.run.generations << ", \"seconds\": " << r.run.seconds
       << ", \"stop\": " << jsonString(r.run.stopReason) << "},\n";

@@ -2,6 +2,7 @@
 #include "report/report.hpp"
 
 #include <algorithm>
+#include <cmath>
 #include <cstdio>
 #include <map>
 
@@ -102,6 +103,28 @@ Report buildReport(const model::Problem& p, const model::Roster& roster, std::ve
   }
   r.breaches = std::move(breaches);
   return r;
+}
+
+std::optional<double> gapPercent(const Report& report) {
+  const auto& bound = report.run.lowerBound;
+  if (!bound || report.total.hard > 0) return std::nullopt;
+  if (*bound == 0) return report.total.soft == 0 ? std::optional<double>(0.0) : std::nullopt;
+  return 100.0 * static_cast<double>(report.total.soft - *bound) / static_cast<double>(*bound);
+}
+
+std::string boundPointsText(Cost bound) {
+  return trimmedNumber(std::floor(static_cast<double>(bound) * 100.0 / static_cast<double>(kCostScale)) / 100.0);
+}
+
+std::string lowerBoundText(const Report& report) {
+  if (!report.run.lowerBound) return "";
+  std::string text = "no roster without a hard breach can score below " + boundPointsText(*report.run.lowerBound) + " soft points";
+  if (const auto gap = gapPercent(report)) {
+    char percent[32];
+    std::snprintf(percent, sizeof percent, "%.1f", *gap);
+    text += std::string("; this one is at most ") + percent + " % above it";
+  }
+  return text;
 }
 
 }  // namespace rotaweave::report

@@ -24,6 +24,8 @@ struct RunInfo {
   double seconds = 0;
   std::string stopReason;          ///< e.g. "time limit", "generation limit", "interrupted"
   std::vector<std::pair<double, rules::Tally>> progress;  ///< (seconds, best) over the run
+  /// Soft penalty no roster without a hard breach can score below, where the search proved one.
+  std::optional<Cost> lowerBound;
 };
 
 struct RuleSummary {
@@ -59,6 +61,14 @@ Report buildReport(const model::Problem& problem, const model::Roster& roster, s
 
 /// The caution every report ends with.
 const char* cautionText();
+
+/// How far the roster's soft penalty lies above a proven lower bound, in percent; unset without
+/// a bound, or where the bound is 0 and the roster is not.
+std::optional<double> gapPercent(const Report& report);
+/// A lower bound in points, cut (never rounded up) to hundredths: "818.34".
+std::string boundPointsText(Cost bound);
+/// The sentence report.txt gives the bound, or "" without one.
+std::string lowerBoundText(const Report& report);
 
 /// Penalty points as text: "12", "3.5", "0.25".
 std::string pointsText(Cost cost);

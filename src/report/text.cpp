@@ -59,7 +59,9 @@ std::string renderText(const Report& r, const model::Problem& p) {
   out << "TOTALS\n"
       << "  Hard rules: " << r.hardCount << (r.hardCount == 1 ? " breach" : " breaches") << ", penalty "
       << pointsText(r.total.hard) << (r.hardCount == 0 ? "  (no hard rule is broken)" : "  (must be fixed before publishing)") << "\n"
-      << "  Soft rules: " << soft << (soft == 1 ? " breach" : " breaches") << ", penalty " << pointsText(r.total.soft) << "\n\n";
+      << "  Soft rules: " << soft << (soft == 1 ? " breach" : " breaches") << ", penalty " << pointsText(r.total.soft) << "\n";
+  if (const std::string bound = lowerBoundText(r); !bound.empty()) out << "  Lower bound: " << bound << "\n";
+  out << "\n";
 
   out << "BY RULE\n";
   if (r.byRule.empty()) out << "  (none)\n";

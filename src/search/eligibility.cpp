@@ -46,6 +46,7 @@ Eligibility::Eligibility(const model::Problem& p) : days_(p.days), tasks_(p.task
           requested = requested || (r.day == d && r.kind == model::Request::Kind::Shift && r.shift == task.shift &&
                                     task.skill == person.skills.front());
         if (!anyDemand || p.demandAt(d, t).defined || requested) add(t);
+        else complete_ = false;
       }
       if (options_.size() - static_cast<size_t>(start_.back()) > 1) {
         free_.push_back(static_cast<int>(index(s, d)));

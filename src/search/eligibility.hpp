@@ -23,6 +23,10 @@ class Eligibility {
   const std::vector<StaffIdx>& freeOnDay(DayIdx d) const { return freeByDay_[static_cast<size_t>(d)]; }
   /// The only option of a cell that is not free (fixed, or off for an absence).
   TaskIdx forced(StaffIdx s, DayIdx d) const { return *begin(s, d); }
+  /// Whether every cell offers every role its person holds that no hard rule rules out. Cells
+  /// skip roles nobody needs that day (no demand, no request), and then rosters that use
+  /// them, worth having only for a person's hours, are never built.
+  bool complete() const { return complete_; }
 
  private:
   size_t index(StaffIdx s, DayIdx d) const { return static_cast<size_t>(s) * static_cast<size_t>(days_) + static_cast<size_t>(d); }
@@ -33,6 +37,7 @@ class Eligibility {
   std::vector<std::uint8_t> allowed_;
   std::vector<int> free_;
   std::vector<std::vector<StaffIdx>> freeByDay_;
+  bool complete_ = true;
 };
 
 }  // namespace rotaweave::search

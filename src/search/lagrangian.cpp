@@ -107,6 +107,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, std
   for (RowRefit& refit : refits) refit.setDeadline(deadline);
   const int group = repairGroup(people);
   std::vector<double> rowCost(static_cast<size_t>(people), 0.0);
+  std::vector<std::uint8_t> rowExact(static_cast<size_t>(people), 1);
   std::vector<RowChange> groupChanges(static_cast<size_t>(group)), pricedChanges(static_cast<size_t>(people));
 
   model::Roster start(people, p.days);  // each cell's first option: off unless the cell is fixed
@@ -127,7 +128,9 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, std
       RowChange& change = pricedChanges[static_cast<size_t>(s)];
       double& cost = rowCost[static_cast<size_t>(s)];
       cost = 0;
-      if (refit.refitAtPrices(working, s, 0, p.days, price.data(), hardWeight, change, cost)) writeRowChange(working, change);
+      const bool found = refit.refitAtPrices(working, s, 0, p.days, price.data(), hardWeight, change, cost);
+      rowExact[static_cast<size_t>(s)] = refit.lastWasExact();
+      if (found) writeRowChange(working, change);
     });
     if (!priced) break;  // out of time: this round's rows are unfinished
     double rowsCost = 0;
@@ -152,6 +155,8 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, std
         norm += gradient[c] * gradient[c];
       }
     const double dual = rowsCost + coverSide;
+    if (std::all_of(rowExact.begin(), rowExact.end(), [](std::uint8_t exact) { return exact != 0; }))
+      result.bound = std::max(result.bound.value_or(-INFINITY), dual);
 
     // 3 - Repair: re-fit rows against the real cover, in a random order each pass, a group of
     // people at a time (each against the cover before the group). A repair cut short by the

@@ -9,6 +9,7 @@
 /// (search/pool_combination.hpp) joins the best repaired rosters that seed the islands.
 #pragma once
 #include <chrono>
+#include <optional>
 #include <vector>
 
 #include "eval/evaluator.hpp"
@@ -20,10 +21,14 @@ namespace rotaweave::search {
 
 struct LagrangianResult {
   std::vector<model::Roster> rosters;  ///< the best distinct repaired or combined rosters, best first
-  /// Best value of the relaxation, in weighed cost units (0 if no round ran). A lower bound on
-  /// every roster only when each rule is cover, cell-local or a hard rule the re-fit models,
-  /// every row has a feasible choice and the period fits in one re-fit window.
+  /// Best value of the relaxation, in weighed cost units (0 if no round ran).
   double dual = 0;
+  /// The best value of the rounds whose every row was priced exactly (no labels dropped),
+  /// if any: no roster without a hard breach costs less, provided every cell may take every
+  /// role its person holds (Eligibility::complete). Rules the re-fit does not model only make
+  /// it lower: it prices rows by cell rules and cover alone and never rules out a row a hard
+  /// rule allows.
+  std::optional<double> bound;
   int rounds = 0;                      ///< subgradient rounds run
 };
 

@@ -204,7 +204,7 @@ bool RowRefit::cheapestRow(const model::Roster& roster, const eval::Evaluator* e
   const int beam = static_cast<int>(std::clamp<long>(budget, std::min(kMinBeam, beam_), beam_));
   size_t layerBegin = 0;  // the previous day's labels are labels_[layerBegin, end)
   for (DayIdx d = first; d < end; ++d) {
-    if (std::chrono::steady_clock::now() >= deadline_ || stopRequested()) return false;
+    if (std::chrono::steady_clock::now() >= deadline_ || stopRequested()) return exact_ = false;
     const int reachable = needsMinutes ? mostPaid_[static_cast<size_t>(d - first + 1)] : 0;
     const int from = static_cast<int>(layerBegin);
     const int to = static_cast<int>(labels_.size());

@@ -58,7 +58,8 @@ class RowRefit {
   bool refitAtPrices(const model::Roster& roster, StaffIdx s, DayIdx first, int length, const double* prices,
                      double hardWeight, RowChange& change, double& cost);
 
-  /// Whether the last call kept every label (its row is then the cheapest there is).
+  /// Whether the last call kept every label to the end (its row, if any, is then the cheapest
+  /// there is; if none, there is none).
   bool lastWasExact() const { return exact_; }
   /// Calls return false (no row) once `deadline` passes or a stop is requested.
   void setDeadline(std::chrono::steady_clock::time_point deadline) { deadline_ = deadline; }

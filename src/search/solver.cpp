@@ -76,9 +76,13 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
     eval::Evaluator ev(rules);
     std::vector<RowRefit> refits(static_cast<size_t>(result.threads), RowRefit(rules, eligibility));
     Rng rng(splitmix64(seedState));
-    starts = lagrangianStarts(eligibility, ev, refits, rng, options.lagrangianRounds, options.lagrangianStarts, kStartHardWeight,
-                              after(options.timeLimit * kLagrangianTimeShare))
-                 .rosters;
+    LagrangianResult relaxed = lagrangianStarts(eligibility, ev, refits, rng, options.lagrangianRounds, options.lagrangianStarts,
+                                                kStartHardWeight, after(options.timeLimit * kLagrangianTimeShare));
+    starts = std::move(relaxed.rosters);
+    // Every roster costs a whole number of cost units: the bound rounds up to one, after a
+    // margin for the rounding of its sum in doubles.
+    if (relaxed.bound && eligibility.complete())
+      result.lowerBound = std::max<Cost>(0, static_cast<Cost>(std::ceil(*relaxed.bound - 1e-6 * std::max(1.0, std::abs(*relaxed.bound)))));
   }
 
   result.phases.push_back({"starts", elapsed()});

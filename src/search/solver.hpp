@@ -7,6 +7,7 @@
 /// (a time limit or a signal can stop a run at a different point, by nature).
 #pragma once
 #include <functional>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -40,6 +41,9 @@ struct SolveResult {
   int threads = 0;
   std::vector<std::pair<double, rules::Tally>> history;  ///< best over time
   std::vector<PhaseTime> phases;                         ///< in the order they ran
+  /// Soft penalty (cost units) no roster without a hard breach can score below, where the
+  /// relaxation proves one (search/lagrangian.hpp); unset where it cannot.
+  std::optional<Cost> lowerBound;
 };
 
 using ProgressSink = std::function<void(const Progress&)>;

@@ -9,7 +9,9 @@ optimality with CBC and then holds the rotaweave binary against that optimum:
   (a) `rotaweave check` on CBC's roster must report hard == 0 and a soft total
       equal to CBC's objective;
   (b) `rotaweave solve` must reach hard == 0, must never beat CBC's optimum,
-      and on the smallest scenarios must reach it.
+      and on the smallest scenarios must reach it;
+  (c) where its report proves a lower bound (summary.lower_bound), the bound
+      never lies above CBC's optimum.
 
 Besides CBC, a small direct scorer (run by run, window by window) re-scores
 CBC's roster, so the MIP itself is checked against a second reading of the
@@ -683,7 +685,11 @@ def compare_solve(binary, scenario_path, out_dir, optimum, generations, exact):
         problems.append("solve soft %s beats the CBC optimum %s" % (summary["soft"], optimum))
     if exact and summary["soft"] > optimum + TOLERANCE:
         problems.append("solve soft %s misses the CBC optimum %s" % (summary["soft"], optimum))
-    return problems, summary["soft"]
+    # The proven lower bound, where the report gives one, never lies above the optimum.
+    bound = summary.get("lower_bound")
+    if bound is not None and bound > optimum + TOLERANCE:
+        problems.append("lower bound %s lies above the CBC optimum %s" % (bound, optimum))
+    return problems, (summary["soft"], bound)
 
 
 def feasible_scenarios():
@@ -733,7 +739,7 @@ def main():
     by_size = sorted(range(len(scenarios)), key=lambda i: (size(scenarios[i][1]), i))
     exact = set(by_size[:EXACT_COUNT])
 
-    passed = failed = 0
+    passed = failed = bounds = 0
     for i, (scn, pb, roster, objective) in enumerate(scenarios):
         name = "seed%d" % scn["seed"]
         base = os.path.join(work, name)
@@ -761,7 +767,9 @@ def main():
             found, solved = compare_solve(binary, scenario_path, os.path.join(base, "solve"),
                                           objective, generations, i in exact)
             problems += found
-            line += ", solve %s (%d generations%s)" % (solved, generations, ", must match" if i in exact else "")
+            soft, bound = solved if solved else (None, None)
+            bounds += bound is not None
+            line += ", solve %s (%d generations%s), bound %s" % (soft, generations, ", must match" if i in exact else "", bound)
         line += " [%s]" % " ".join(describe(rule) for rule in pb.rules)
         if problems:
             failed += 1
@@ -773,7 +781,7 @@ def main():
             print("ok   " + line)
         sys.stdout.flush()
 
-    print("work directory: %s; %.0f s" % (work, time.time() - began))
+    print("work directory: %s; %.0f s; %d of %d solves proved a lower bound" % (work, time.time() - began, bounds, passed + failed))
     print("%d passed, %d failed" % (passed, failed))
     return 1 if failed else 0
 

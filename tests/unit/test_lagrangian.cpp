@@ -68,7 +68,19 @@ TEST_SUITE("search") {
       }
       REQUIRE(others > 0);
       CHECK(result.dual <= lowest + slack);
+      // Every row of this small scenario is priced exactly, so the rounds prove their bound.
+      REQUIRE(result.bound.has_value());
+      CHECK(*result.bound <= lowest + slack);
+      CHECK(*result.bound == result.dual);
     }
+  }
+
+  TEST_CASE("no bound is proved from rounds whose rows were not priced exactly") {
+    Setup x("[]");
+    x.refit.setBeamWidth(1);  // the rounds copy it: every day drops labels
+    const search::LagrangianResult result = x.run(1, 20, 2);
+    CHECK(result.rounds > 0);
+    CHECK_FALSE(result.bound.has_value());
   }
 
   TEST_CASE("Lagrangian starts come best first, distinct and within eligibility") {
