@@ -275,9 +275,9 @@ bool Evaluator::scoreRowChange(int i, const Limit* limit, Tally& least, Tally& c
   const CellChange* changes = &rowChanges_[static_cast<size_t>(i) * Move::kCapacity];
   const auto& sequence = rules_->sequenceRulesFor(s);
   const size_t rulesPerRow = rules_->maxSequenceRules();
-  const std::uint32_t* asked = &asked_[static_cast<size_t>(i) * rulesPerRow];
-  Tally* after = &newRuleTally_[static_cast<size_t>(i) * rulesPerRow];
-  const Tally* before = &ruleTally_[static_cast<size_t>(s) * rulesPerRow];
+  const std::uint32_t* asked = asked_.data() + static_cast<size_t>(i) * rulesPerRow;
+  Tally* after = newRuleTally_.data() + static_cast<size_t>(i) * rulesPerRow;
+  const Tally* before = ruleTally_.data() + static_cast<size_t>(s) * rulesPerRow;
   const rules::RowView row = loadedView(s);  // sees the patch below
   auto patch = [&] {
     for (int j = 0; j < pr.changes; ++j) {
@@ -314,7 +314,7 @@ bool Evaluator::scoreRowChange(int i, const Limit* limit, Tally& least, Tally& c
   const bool oneRun = runCount == 1;
   auto addReach = [&](int q) {
     const rules::RowRule& rule = *sequence[asked[q]];
-    rules::AnchorSpan* spans = &spans_[static_cast<size_t>(q) * kSpansPerRule];
+    rules::AnchorSpan* spans = spans_.data() + static_cast<size_t>(q) * kSpansPerRule;
     int& n = spanCount_[static_cast<size_t>(q)];
     for (int r = 0; r < runCount; ++r) {
       const rules::AnchorSpan reach = rule.reach(row, runs[static_cast<size_t>(r)].first, runs[static_cast<size_t>(r)].last);
@@ -329,7 +329,7 @@ bool Evaluator::scoreRowChange(int i, const Limit* limit, Tally& least, Tally& c
   bool rejected = false;
   for (int q = 0; q < pr.asked && !rejected; ++q) {
     if (!oneRun) addReach(q);
-    rules::AnchorSpan* spans = &spans_[static_cast<size_t>(q) * kSpansPerRule];
+    rules::AnchorSpan* spans = spans_.data() + static_cast<size_t>(q) * kSpansPerRule;
     int& n = spanCount_[static_cast<size_t>(q)];
     n = mergeSpans(spans, n);
     Tally part;
@@ -346,7 +346,7 @@ bool Evaluator::scoreRowChange(int i, const Limit* limit, Tally& least, Tally& c
     const std::uint32_t k = asked[q];
     Tally removed;  // the old terms; none where the rule cost nothing
     if (!(before[k] == Tally{})) {
-      const rules::AnchorSpan* spans = &spans_[static_cast<size_t>(q) * kSpansPerRule];
+      const rules::AnchorSpan* spans = spans_.data() + static_cast<size_t>(q) * kSpansPerRule;
       for (int j = 0; j < spanCount_[static_cast<size_t>(q)]; ++j) sequence[k]->score(row, spans[j], removed, nullptr);
     }
     const Tally part = after[q];
@@ -438,11 +438,11 @@ bool Evaluator::evaluateMove(const Move& move, const Limit* limit) {
   Tally least = total_ + delta;
   for (int i = 0; i < pendingRowCount_; ++i) {
     PendingRow& pr = pendingRows_[static_cast<size_t>(i)];
-    std::uint32_t* asked = &asked_[static_cast<size_t>(i) * rulesPerRow];
+    std::uint32_t* asked = asked_.data() + static_cast<size_t>(i) * rulesPerRow;
     pr.asked = rulesToAsk(pr.staff, &rowChanges_[static_cast<size_t>(i) * Move::kCapacity], pr.changes, asked);
     if (!limit) continue;
     least += pr.cells - rowCells_[static_cast<size_t>(pr.staff)];
-    const Tally* before = &ruleTally_[static_cast<size_t>(pr.staff) * rulesPerRow];
+    const Tally* before = ruleTally_.data() + static_cast<size_t>(pr.staff) * rulesPerRow;
     for (int q = 0; q < pr.asked; ++q) least -= before[asked[q]];
   }
   if (limit)
