@@ -209,6 +209,7 @@ LagrangianResult lagrangianStarts(const Eligibility& e, eval::Evaluator& ev, std
     if (combined.roster) remember(kept, keep, ev.score(*combined.roster).weighed(hardWeight), *combined.roster);
   }
   for (auto& entry : kept) result.rosters.push_back(std::move(entry.second));
+  result.pool.emplace(std::move(rows));
   return result;
 }
 

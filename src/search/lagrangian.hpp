@@ -15,6 +15,7 @@
 #include "eval/evaluator.hpp"
 #include "search/eligibility.hpp"
 #include "search/rng.hpp"
+#include "search/row_pool.hpp"
 #include "search/row_refit.hpp"
 
 namespace rotaweave::search {
@@ -30,6 +31,7 @@ struct LagrangianResult {
   /// rule allows.
   std::optional<double> bound;
   int rounds = 0;                      ///< subgradient rounds run
+  std::optional<RowPool> pool;         ///< every row the rounds proposed
 };
 
 /// Runs up to `rounds` subgradient rounds (fewer past `deadline`) and keeps the `keep` best

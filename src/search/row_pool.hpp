@@ -25,17 +25,19 @@ class RowPool {
 
   /// Adds every person's row of `roster` that the pool does not hold yet.
   void addRows(const model::Roster& roster) {
-    for (StaffIdx s = 0; s < roster.staff; ++s) {
-      if (held_ + static_cast<size_t>(days_) > maxCells_) return;
-      const TaskIdx* row = roster.row(s);
-      auto& rows = rows_[static_cast<size_t>(s)];
-      const std::string_view key(reinterpret_cast<const char*>(row), static_cast<size_t>(days_) * sizeof(TaskIdx));
-      if (seen_[static_cast<size_t>(s)].count(key)) continue;
-      rows.emplace_back(row, row + days_);
-      // The key views the stored row, which never moves again: each row is its own vector.
-      seen_[static_cast<size_t>(s)].insert(std::string_view(reinterpret_cast<const char*>(rows.back().data()), key.size()));
-      held_ += static_cast<size_t>(days_);
-    }
+    for (StaffIdx s = 0; s < roster.staff; ++s) addRow(s, roster.row(s));
+  }
+  /// Adds person s's row (one task per day) unless the pool holds it or is full; true if added.
+  bool addRow(StaffIdx s, const TaskIdx* row) {
+    if (held_ + static_cast<size_t>(days_) > maxCells_) return false;
+    auto& rows = rows_[static_cast<size_t>(s)];
+    const std::string_view key(reinterpret_cast<const char*>(row), static_cast<size_t>(days_) * sizeof(TaskIdx));
+    if (seen_[static_cast<size_t>(s)].count(key)) return false;
+    rows.emplace_back(row, row + days_);
+    // The key views the stored row, which never moves again: each row is its own vector.
+    seen_[static_cast<size_t>(s)].insert(std::string_view(reinterpret_cast<const char*>(rows.back().data()), key.size()));
+    held_ += static_cast<size_t>(days_);
+    return true;
   }
 
   int people() const { return static_cast<int>(rows_.size()); }

@@ -11,6 +11,7 @@
 #include <omp.h>
 #endif
 
+#include "search/column_generation.hpp"
 #include "search/eligibility.hpp"
 #include "search/island.hpp"
 #include "search/lagrangian.hpp"
@@ -24,7 +25,7 @@ using Clock = std::chrono::steady_clock;
 /// A hard point outweighs this many soft ones while the starting rosters are built.
 constexpr double kStartHardWeight = 1000.0;
 /// The most of the time limit the relaxation may take.
-constexpr double kLagrangianTimeShare = 0.25;
+constexpr double kLagrangianTimeShare = 0.1;
 
 /// Threads asked for, or every core.
 int wantedThreads(int requested) {
@@ -79,10 +80,22 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
     LagrangianResult relaxed = lagrangianStarts(eligibility, ev, refits, rng, options.lagrangianRounds, options.lagrangianStarts,
                                                 kStartHardWeight, after(options.timeLimit * kLagrangianTimeShare));
     starts = std::move(relaxed.rosters);
+    std::optional<double> bound = relaxed.bound;
+    // Then column generation over the rows the rounds proposed, within its own share.
+    if (options.columnShare > 0 && !starts.empty() && relaxed.pool) {
+      const double share = std::min(options.columnShare, std::max(0.0, 1.0 - elapsed() / options.timeLimit));
+      ColumnGenerationLimits limits;
+      limits.pricingDeadline = std::min(deadline, Clock::now() + std::chrono::duration_cast<Clock::duration>(
+                                                                     std::chrono::duration<double>(options.timeLimit * share / 3)));
+      limits.integerSeconds = options.timeLimit * share * 2 / 3;
+      const ColumnGenerationResult generated = generateColumns(ev, refits, *relaxed.pool, starts.front(), kStartHardWeight, limits);
+      if (generated.bound) bound = std::max(bound.value_or(-INFINITY), *generated.bound);
+      if (generated.roster) starts.insert(starts.begin(), *generated.roster);
+    }
     // Every roster costs a whole number of cost units: the bound rounds up to one, after a
     // margin for the rounding of its sum in doubles.
-    if (relaxed.bound && eligibility.complete())
-      result.lowerBound = std::max<Cost>(0, static_cast<Cost>(std::ceil(*relaxed.bound - 1e-6 * std::max(1.0, std::abs(*relaxed.bound)))));
+    if (bound && eligibility.complete())
+      result.lowerBound = std::max<Cost>(0, static_cast<Cost>(std::ceil(*bound - 1e-6 * std::max(1.0, std::abs(*bound)))));
   }
 
   result.phases.push_back({"starts", elapsed()});

@@ -28,6 +28,7 @@ const std::vector<ParameterInfo>& parameterTable() {
       {"refit-passes", "rounds in which everyone else re-fits their row in answer, in each refit chain", 0, 10, static_cast<double>(d.refitPasses), true},
       {"lagrangian-rounds", "subgradient rounds that price cover so each person's row can be chosen alone; the rows they propose are combined into the cheapest roster found, and the best rosters start every island (0: none; capped at a quarter of the time limit)", 0, 1e6, static_cast<double>(d.lagrangianRounds), true},
       {"lagrangian-starts", "rosters from those rounds that join every island's first population", 0, 1000, static_cast<double>(d.lagrangianStarts), true},
+      {"column-share", "share of the time limit for column generation after those rounds: a linear programme (CLP) prices cover, each person's best row at those prices joins it, and an integer programme (CBC) picks a roster that starts every island (0: none)", 0, 0.9, d.columnShare, false},
       {"hard-weight", "while searching, a hard penalty point counts as at least this many soft points; more while the search stays infeasible", 1, 1e6, d.hardWeightFloor, false},
       {"migration-interval", "generations between migrations on the island ring", 1, 1e6, static_cast<double>(d.migrationInterval), true},
       {"migrants", "best individuals sent to the next island at each migration", 0, 100, static_cast<double>(d.migrants), true},
@@ -65,6 +66,7 @@ void setParameter(SolverOptions& o, const std::string& name, double v) {
   else if (name == "refit-passes") o.refitPasses = static_cast<int>(v);
   else if (name == "lagrangian-rounds") o.lagrangianRounds = static_cast<int>(v);
   else if (name == "lagrangian-starts") o.lagrangianStarts = static_cast<int>(v);
+  else if (name == "column-share") o.columnShare = v;
   else if (name == "hard-weight") o.hardWeightFloor = v;
   else if (name == "migration-interval") o.migrationInterval = static_cast<int>(v);
   else if (name == "migrants") o.migrants = static_cast<int>(v);

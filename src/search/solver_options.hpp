@@ -32,6 +32,7 @@ struct SolverOptions {
   int refitPasses = 1;               ///< rounds of answering re-fits by everyone else in a refit chain
   int lagrangianRounds = 1000;       ///< subgradient rounds for starting rosters from priced cover; 0: none
   int lagrangianStarts = 4;          ///< of its rosters, how many join every island's first population
+  double columnShare = 0.35;         ///< of the time limit, for column generation after the rounds; 0: none
   double hardWeightFloor = 100;      ///< least soft points a hard point counts for while searching
   int migrationInterval = 8;         ///< generations between migrations
   int migrants = 2;
