@@ -129,7 +129,7 @@ TimedSolve timedSolve(const rules::RuleSet& set, const search::SolverOptions& o)
 
 /// How the timed solves are bounded: a generation count, and a time limit that leaves room for
 /// all of them after the starts. The time limit also sets how long the relaxation may run (a
-/// quarter of it, and as long again for the pool's combination).
+/// tenth of it, as long again for the pool's combination, then column generation's share).
 struct Plan {
   double firstPopulationSeconds = 0;  ///< probe: the first populations, without relaxation starts
   double generationSeconds = 0;       ///< probe: one generation, one thread

@@ -33,6 +33,7 @@ constexpr int kIntegerNodes = 2000;
 /// Pricing rounds times people before the dive (at least kMinRounds rounds).
 constexpr int kPersonRounds = 5000;
 constexpr int kMinRounds = 4;
+constexpr int kMaxRounds = 500;
 /// CBC runs only on masters of at most this many columns: on larger ones its root alone
 /// (cuts, heuristics) takes minutes and, measured, found nothing better than the dive.
 constexpr int kIntegerColumns = 20000;
@@ -86,11 +87,7 @@ class Pricer {
       for (const auto& c : changes_[i].cells) row_[static_cast<size_t>(c.day)] = c.task;
       // The true reduced cost: the row rules the re-fit does not model count too.
       const double cost = ev_.rowScore(s, row_.data()).weighed(hardWeight_);
-      double reduced = cost - master_.personDual(s);
-      for (DayIdx d = 0; d < p_.days; ++d)
-        if (const TaskIdx t = row_[static_cast<size_t>(d)]; t != kOff)
-          reduced += master_.cellPrices()[static_cast<size_t>(d) * static_cast<size_t>(p_.taskCount()) + static_cast<size_t>(t)];
-      if (reduced < -kImprovement && seen_.addRow(s, row_.data())) {
+      if (master_.reducedCost(s, row_.data(), cost) < -kImprovement && seen_.addRow(s, row_.data())) {
         master_.addColumn(s, row_.data(), cost);
         ++round.added;
       }
@@ -137,18 +134,14 @@ ColumnGenerationResult generateColumns(eval::Evaluator& ev, std::vector<RowRefit
   // 1 - Rounds until no row helps or the pricing share is spent.
   const std::vector<std::uint8_t> everyone;
   // Rounds are bounded by work too (person-rounds), for runs bounded by generations.
-  const int maxRounds = std::min(limits.maxRounds, std::max(kMinRounds, kPersonRounds / std::max(people, 1)));
+  const int maxRounds = std::min(kMaxRounds, std::max(kMinRounds, kPersonRounds / std::max(people, 1)));
   while (result.rounds < maxRounds && Clock::now() < limits.pricingDeadline && !stopRequested()) {
     if (!master.solveLinear()) return result;
     ++result.rounds;
-    result.linearValue = master.linearValue();
     const Pricer::Round round = pricer.run(everyone, limits.pricingDeadline);
     if (!round.complete) break;
     if (round.exact) result.bound = std::max(result.bound.value_or(-INFINITY), round.bound);
-    if (round.added == 0) {
-      result.converged = true;
-      break;
-    }
+    if (round.added == 0) break;  // converged: no row lowers the relaxation
   }
   if (result.rounds == 0 || stopRequested()) return result;
 
@@ -183,7 +176,6 @@ ColumnGenerationResult generateColumns(eval::Evaluator& ev, std::vector<RowRefit
     }
   }
   master.unfixAll();
-  result.columns = master.columns();
   if (static_cast<int>(chosen.size()) < people) return result;
   result.roster = master.rosterOf(chosen);
   // 3 - What time is left goes to CBC, from the dive's roster: on small scenarios it may

@@ -22,18 +22,15 @@ namespace rotaweave::search {
 
 struct ColumnGenerationResult {
   std::optional<model::Roster> roster;  ///< the roster of the dive (then CBC), if it found one
-  double linearValue = 0;               ///< the last relaxation's value (weighed cost units)
   /// Weighed cost no roster without a hard breach goes below, from a pricing round where
   /// every row was priced exactly (provided Eligibility::complete()).
   std::optional<double> bound;
-  int rounds = 0, columns = 0;
-  bool converged = false;  ///< no row could lower the relaxation any more
+  int rounds = 0;  ///< pricing rounds before the dive
 };
 
 struct ColumnGenerationLimits {
   std::chrono::steady_clock::time_point pricingDeadline;  ///< pricing rounds stop here
   double integerSeconds = 1;                              ///< then the dive and CBC get this long
-  int maxRounds = 500;
 };
 
 /// Runs column generation from the rows of `pool` and of `incumbent` (any roster), weighing

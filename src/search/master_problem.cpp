@@ -105,6 +105,13 @@ double MasterProblem::linearValue() const { return lp_->getObjValue() + offset_;
 
 double MasterProblem::personDual(StaffIdx s) const { return lp_->getRowPrice()[s]; }
 
+double MasterProblem::reducedCost(StaffIdx s, const TaskIdx* row, double rowCost) const {
+  double reduced = rowCost - personDual(s);
+  for (DayIdx d = 0; d < p_->days; ++d)
+    if (row[d] != kOff) reduced += price_[static_cast<size_t>(d) * static_cast<size_t>(tasks_) + static_cast<size_t>(row[d])];
+  return reduced;
+}
+
 const double* MasterProblem::rowValues() const { return lp_->getColSolution(); }
 
 void MasterProblem::fix(int column) {

@@ -46,6 +46,9 @@ class MasterProblem {
   const std::vector<double>& cellPrices() const { return price_; }
   /// A person's dual: a new row of theirs helps when its cost plus its cells' prices is below it.
   double personDual(StaffIdx s) const;
+  /// A new row's reduced cost: its row rules' cost plus its cells' prices, less the person's
+  /// dual; negative where it would lower the relaxation.
+  double reducedCost(StaffIdx s, const TaskIdx* row, double rowCost) const;
 
   /// Diving: the relaxation's value of each row column, fixing one at 1, undoing every fix.
   const double* rowValues() const;
