@@ -117,7 +117,8 @@ std::string boundPointsText(Cost bound) {
 }
 
 std::string lowerBoundText(const Report& report) {
-  if (!report.run.lowerBound) return "";
+  // A bound of zero holds for every roster and tells a reader nothing: report.json keeps it.
+  if (!report.run.lowerBound || *report.run.lowerBound <= 0) return "";
   std::string text = "no roster without a hard breach can score below " + boundPointsText(*report.run.lowerBound) + " soft points";
   if (const auto gap = gapPercent(report)) {
     char percent[32];
