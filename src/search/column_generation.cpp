@@ -74,14 +74,15 @@ class Pricer {
       exact_[i] = refit.lastWasExact();
       if (!refit.lastWasExact() && Clock::now() >= deadline) late = true;
     }
-    if (late) return round;  // a round cut short proves nothing and adds what it half priced
-    round.complete = round.exact = true;
+    // A round cut short proves nothing, but every row it found is a whole row: those that
+    // help still join (a large scenario on a busy machine may never finish a round).
+    round.complete = round.exact = !late;
     round.bound = master_.linearValue();
     for (StaffIdx s = 0; s < people; ++s) {
       const auto i = static_cast<size_t>(s);
       if (!done.empty() && done[i]) continue;
       round.exact = round.exact && exact_[i];
-      if (!found_[i]) continue;  // no row keeps the modelled hard rules
+      if (!found_[i]) continue;  // no row keeps the modelled hard rules, or not priced in time
       round.bound += std::min(0.0, cost_[i] - master_.personDual(s));
       std::copy(base_.row(s), base_.row(s) + p_.days, row_.begin());
       for (const auto& c : changes_[i].cells) row_[static_cast<size_t>(c.day)] = c.task;
@@ -152,9 +153,12 @@ ColumnGenerationResult generateColumns(eval::Evaluator& ev, std::vector<RowRefit
   std::vector<int> chosen, candidates;
   while (static_cast<int>(chosen.size()) < people && Clock::now() < diveEnd && !stopRequested()) {
     if (!master.solveLinear()) break;
-    for (int round = 0; round < kRoundsPerFix; ++round) {
-      if (pricer.run(done, diveEnd).added == 0 || !master.solveLinear()) break;
+    bool solved = true;  // the values read below are of every column, new ones included
+    for (int round = 0; round < kRoundsPerFix && solved; ++round) {
+      if (pricer.run(done, diveEnd).added == 0) break;
+      solved = master.solveLinear();
     }
+    if (!solved) break;
     // Each whole row, then the largest others: a sixteenth of the people still open at a
     // time, so a dive takes a bounded number of steps however many people there are.
     const double* x = master.rowValues();
@@ -174,6 +178,22 @@ ColumnGenerationResult generateColumns(eval::Evaluator& ev, std::vector<RowRefit
       if (done[s]) continue;
       done[s] = 1, chosen.push_back(c), master.fix(c), --take;
     }
+  }
+  // Out of time before everyone was fixed: each open person takes the row the last
+  // relaxation took most of (their incumbent row where it took none), so the dive's work
+  // still yields a whole roster for the islands to improve.
+  if (static_cast<int>(chosen.size()) < people && !stopRequested()) {
+    std::vector<int> best(incumbentColumns);
+    std::vector<double> most(static_cast<size_t>(people), 0.0);
+    if (master.solveLinear()) {
+      const double* x = master.rowValues();
+      for (int c = master.firstRowColumn(); c < master.firstRowColumn() + master.columns(); ++c) {
+        const auto s = static_cast<size_t>(master.columnStaff(c));
+        if (!done[s] && x[c] > most[s]) most[s] = x[c], best[s] = c;
+      }
+    }
+    for (StaffIdx s = 0; s < people; ++s)
+      if (!done[static_cast<size_t>(s)]) done[static_cast<size_t>(s)] = 1, chosen.push_back(best[static_cast<size_t>(s)]);
   }
   master.unfixAll();
   if (static_cast<int>(chosen.size()) < people) return result;

@@ -12,6 +12,7 @@
 #endif
 
 #include "search/column_generation.hpp"
+#include "search/construction.hpp"
 #include "search/eligibility.hpp"
 #include "search/island.hpp"
 #include "search/lagrangian.hpp"
@@ -82,7 +83,13 @@ SolveResult solve(const rules::RuleSet& rules, const SolverOptions& options, con
     starts = std::move(relaxed.rosters);
     std::optional<double> bound = relaxed.bound;
     // Then column generation over the rows the rounds proposed, within its own share.
-    if (options.columnShare > 0 && !starts.empty() && relaxed.pool) {
+    if (options.columnShare > 0 && relaxed.pool) {
+      // Where the relaxation's share ended before its first repaired roster (large
+      // scenarios, busy machines), columns grow from a greedy roster instead.
+      if (starts.empty()) {
+        greedyRoster(eligibility, ev, rng, 0.0, deadline);
+        starts.push_back(ev.roster());
+      }
       const double share = std::min(options.columnShare, std::max(0.0, 1.0 - elapsed() / options.timeLimit));
       ColumnGenerationLimits limits;
       limits.pricingDeadline = std::min(deadline, Clock::now() + std::chrono::duration_cast<Clock::duration>(
