@@ -40,6 +40,7 @@ TEST_SUITE("search") {
     o.timeLimit = 600;
     o.stallGenerations = 0;
     o.localSearchMoves = 200;
+    o.lagrangianRounds = 100;  // enough for the starts to differ by seed; the test is about threads
     o.threads = 1;
     const auto one = search::solve(set, o, {}, nullptr);
     o.threads = 2;
@@ -54,7 +55,10 @@ TEST_SUITE("search") {
     const rules::RuleSet set(p);
     search::SolverOptions o;
     o.seed = 3;
-    o.timeLimit = 10;
+    o.timeLimit = 600;  // bounded by work, so a busy machine gives the same roster
+    o.generations = 6;
+    o.localSearchMoves = 20000;
+    o.lagrangianRounds = 200;
     o.islands = 2;
     const auto result = search::solve(set, o, {}, nullptr);
     CHECK(result.score.hard == 0);
