@@ -30,6 +30,18 @@ struct ParamInfo {
   const char* help;
 };
 
+/// How the exact row optimiser (search/row_refit.cpp) treats a kind. Whatever it does not
+/// model, the evaluator still judges in full: a row the optimiser proposes is always scored
+/// by the rules themselves.
+enum class RowOptimiser {
+  Undeclared, ///< a catalogue record that forgot to say (tests/unit/test_rule_catalogue.cpp fails)
+  Exact,      ///< kept in the optimiser's state: its rows never break it
+  Partly,     ///< the part the optimiser can hold (noted in limitsFor), the rest evaluated
+  CellCost,   ///< a cost of single cells: part of the optimiser's cell table
+  Priced,     ///< ties people together: priced per cell by the relaxation and the master
+  Evaluated,  ///< not in the optimiser: only the evaluator judges it
+};
+
 struct KindInfo {
   RuleKind kind;
   const char* name;      ///< The `kind:` string, part of the file contract.
@@ -37,7 +49,12 @@ struct KindInfo {
   bool defaultHard;
   std::vector<ParamInfo> params;
   const char* summary;
+  const char* unit;            ///< Unit of a breach's amount in reports ("" for none).
+  RowOptimiser rowOptimiser;   ///< How the row optimiser handles it.
 };
+
+/// The page describing a kind, relative to the repository root.
+std::string docsPage(const KindInfo& info);
 
 /// Every kind, in catalogue order. The loader validates entries against it and the docs list it.
 const std::vector<KindInfo>& ruleCatalogue();

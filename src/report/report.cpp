@@ -6,6 +6,8 @@
 #include <cstdio>
 #include <map>
 
+#include "model/rule_spec.hpp"
+
 namespace rotaweave::report {
 namespace {
 
@@ -24,14 +26,8 @@ std::string pointsText(Cost cost) { return trimmedNumber(static_cast<double>(cos
 std::string amountText(Cost amount) { return trimmedNumber(static_cast<double>(amount) / static_cast<double>(kAmountScale)); }
 
 const char* amountUnit(const std::string& kind) {
-  if (kind == "cover") return "people";
-  if (kind == "min-hours" || kind == "max-hours" || kind == "weekly-rest") return "h";
-  if (kind == "min-consecutive-days" || kind == "max-consecutive-days" || kind == "min-consecutive" ||
-      kind == "max-consecutive" || kind == "min-consecutive-off" || kind == "days-off-after")
-    return "days";
-  if (kind == "min-count" || kind == "max-count") return "shifts";
-  if (kind == "max-weekends") return "weekends";
-  return "";
+  const auto known = model::kindFromName(kind);
+  return known ? model::kindInfo(*known).unit : "";
 }
 
 std::string amountWithUnit(const std::string& kind, Cost amount) {

@@ -19,6 +19,8 @@ RowRefit::RowRefit(const rules::RuleSet& rules, const Eligibility& e) : rules_(&
   for (StaffIdx s = 0; s < p_->staffCount(); ++s) limits_.push_back(limitsFor(rules, s));
 }
 
+// The kinds handled here are those the catalogue declares Exact or Partly
+// (model::KindInfo::rowOptimiser); tests/unit/test_rule_catalogue.cpp holds the two together.
 RowRefit::Limits RowRefit::limitsFor(const rules::RuleSet& rules, StaffIdx s) const {
   using model::RuleKind;
   const int shifts = static_cast<int>(p_->shifts.size());

@@ -97,6 +97,22 @@ TEST_SUITE("eval") {
     for (std::uint64_t seed = 1; seed <= 5; ++seed) checkDeltas(p, 3000, seed);
   }
 
+  TEST_CASE("incremental and full scores agree on changes against a published roster") {
+    auto p = test::loadYaml(test::header(14) +
+                            "staff:\n  - {id: a, skills: [rn]}\n  - {id: b, skills: [rn]}\n  - {id: c, skills: [rn]}\n"
+                            "demand:\n  - {shift: E, skill: rn, min: 1}\n  - {shift: N, skill: rn, min: 1}\n"
+                            "rules:\n  list:\n"
+                            "    - {kind: changes, early_days: 3, early_weight: 5}\n"
+                            "    - {kind: max-consecutive-days, days: 5}\n");
+    // A published roster as re-planning sets one: every cell some task, changes charged from day 2.
+    model::Published published;
+    search::Rng rng(11);
+    for (int i = 0; i < p.staffCount() * p.days; ++i) published.cells.push_back(static_cast<TaskIdx>(rng.below(p.taskCount())));
+    published.from = 2;
+    p.published = published;
+    for (std::uint64_t seed = 1; seed <= 3; ++seed) checkDeltas(p, 2000, seed);
+  }
+
   TEST_CASE("incremental and full scores agree on a long horizon with overlapping shifts") {
     // 364 days; X (00:30-04:00) lies inside the night after N, M is a long overnight shift, so
     // rests are negative and a shift can end before the one before it; history of different
