@@ -1,6 +1,7 @@
 /// @brief The parameter table and its bounds checks.
 #include "search/solver_options.hpp"
 
+#include <cmath>
 #include <sstream>
 #include <stdexcept>
 
@@ -41,7 +42,7 @@ void setParameter(SolverOptions& o, const std::string& name, double v) {
   for (const auto& p : parameterTable())
     if (name == p.name) info = &p;
   if (!info) throw std::invalid_argument("unknown parameter '" + name + "'");
-  if (v < info->min || v > info->max || (info->integer && v != static_cast<double>(static_cast<long long>(v)))) {
+  if (!(v >= info->min && v <= info->max) || (info->integer && std::floor(v) != v)) {  // NaN fails too
     std::ostringstream msg;
     msg << "--" << name << " must be " << (info->integer ? "a whole number " : "") << "in [" << info->min << ", "
         << info->max << "], got " << v;
