@@ -15,8 +15,8 @@ inline constexpr std::uintmax_t kMaxInputBytes = std::uintmax_t{64} << 20;
 /// People in one scenario.
 inline constexpr size_t kMaxStaff = 5000;
 /// YAML nodes (scalars, lists and maps) in one file; a 5,000-person scenario with a dozen
-/// requests and absences each has about 300,000.
-inline constexpr size_t kMaxYamlNodes = 1'000'000;
+/// requests and absences each has about 150,000, and yaml-cpp takes about 500 bytes a node.
+inline constexpr size_t kMaxYamlNodes = 500'000;
 /// Non-blank rows a roster CSV may have beyond one per person (the header, stray lines).
 inline constexpr size_t kSpareCsvRows = 100;
 /// Cells a roster CSV row may have beyond one per date and the staff column.
