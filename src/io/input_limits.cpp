@@ -7,6 +7,7 @@
 #include <unistd.h>
 
 #include <cerrno>
+#include <algorithm>
 #include <cstring>
 #include <fstream>
 #include <vector>
@@ -69,66 +70,85 @@ std::string readInputFile(const std::string& path, const std::string& what) {
   return text;
 }
 
+CsvShape measureCsv(std::istream& in, size_t maxRows, size_t maxCells) {
+  CsvShape shape;
+  size_t cells = 1;
+  int line = 1;
+  bool quoted = false, quoteInQuoted = false, value = false, afterCr = false;
+  shape.line = 1;
+  auto endRow = [&] {
+    // parseCsv drops a row of one empty cell (a blank line).
+    if (cells > 1 || value) {
+      ++shape.rows;
+      shape.widest = std::max(shape.widest, cells);
+      if (shape.rows > maxRows) shape.stopped = true;
+    }
+    cells = 1;
+    value = false;
+    if (!shape.stopped) shape.line = line;
+  };
+  std::vector<char> buffer(1 << 16);
+  while (in && !shape.stopped) {
+    in.read(buffer.data(), static_cast<std::streamsize>(buffer.size()));
+    const auto n = static_cast<size_t>(in.gcount());
+    for (size_t i = 0; i < n && !shape.stopped; ++i) {
+      const char c = buffer[i];
+      if (quoted) {
+        if (quoteInQuoted) {
+          quoteInQuoted = false;
+          if (c == '"') {  // "" inside quotes: one quote in the value
+            value = true;
+            continue;
+          }
+          quoted = false;  // the quote closed the cell: read c as unquoted
+        } else {
+          if (c == '"') {
+            quoteInQuoted = true;
+          } else {
+            value = true;
+            if (c == '\n') ++line;
+          }
+          continue;
+        }
+      }
+      const bool lfAfterCr = c == '\n' && afterCr;
+      afterCr = c == '\r';
+      if (lfAfterCr) continue;  // the \n of \r\n
+      if (c == '\n' || c == '\r') {
+        ++line;
+        endRow();
+      } else if (c == '"' && !value) {
+        quoted = true;
+      } else if (c == ',') {
+        value = false;
+        if (++cells > maxCells) {
+          shape.widest = cells;
+          shape.stopped = true;
+        }
+      } else {
+        value = true;
+      }
+    }
+  }
+  if (!shape.stopped) endRow();
+  return shape;
+}
+
 void checkRosterCsvShape(const std::string& path, size_t staff, int days) {
   checkInputSize(path, "roster file");
   std::ifstream in(path, std::ios::binary);
   if (!in) return;  // the reader says it cannot open it
   const size_t maxRows = staff + kSpareCsvRows;
   const size_t maxCells = static_cast<size_t>(days) + 1 + kSpareCsvCells;
-  size_t rows = 0, cells = 1;
-  int line = 1, rowLine = 1;
-  bool quoted = false, quoteInQuoted = false, cellEmpty = true, content = false, afterCr = false;
-  auto endRow = [&] {
-    if (content && ++rows > maxRows)
-      throw InputError(path, rowLine, 0,
-                       "the roster has more than " + std::to_string(maxRows) + " rows but the scenario has " + std::to_string(staff) +
-                           " people; a roster has a header and one row per person: check that it is the roster for this scenario");
-    cells = 1;
-    cellEmpty = true;
-    content = false;
-    rowLine = line;
-  };
-  std::vector<char> buffer(1 << 16);
-  while (in) {
-    in.read(buffer.data(), static_cast<std::streamsize>(buffer.size()));
-    const auto n = static_cast<size_t>(in.gcount());
-    for (size_t i = 0; i < n; ++i) {
-      const char c = buffer[i];
-      if (quoted) {
-        if (quoteInQuoted) {
-          quoteInQuoted = false;
-          if (c == '"') continue;  // "" inside quotes
-          quoted = false;          // the quote closed the cell: read c as unquoted
-        } else {
-          if (c == '"') quoteInQuoted = true;
-          else if (c == '\n') ++line;
-          continue;
-        }
-      }
-      const bool lf = c == '\n' && afterCr;
-      afterCr = c == '\r';
-      if (lf) continue;  // the \n of \r\n
-      if (c == '\n' || c == '\r') {
-        ++line;
-        endRow();
-        continue;
-      }
-      content = true;
-      if (c == '"' && cellEmpty) {
-        quoted = true;
-        cellEmpty = false;
-      } else if (c == ',') {
-        cellEmpty = true;
-        if (++cells > maxCells)
-          throw InputError(path, rowLine, 0,
-                           "this row has more than " + std::to_string(maxCells) + " cells but the period has " + std::to_string(days) +
-                               " days; a roster row has the staff id and one cell per date");
-      } else {
-        cellEmpty = false;
-      }
-    }
-  }
-  endRow();
+  const CsvShape shape = measureCsv(in, maxRows, maxCells);
+  if (shape.rows > maxRows)
+    throw InputError(path, shape.line, 0,
+                     "the roster has more than " + std::to_string(maxRows) + " rows but the scenario has " + std::to_string(staff) +
+                         " people; a roster has a header and one row per person: check that it is the roster for this scenario");
+  if (shape.widest > maxCells)
+    throw InputError(path, shape.line, 0,
+                     "this row has more than " + std::to_string(maxCells) + " cells but the period has " + std::to_string(days) +
+                         " days; a roster row has the staff id and one cell per date");
 }
 
 namespace {

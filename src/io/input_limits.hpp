@@ -6,6 +6,7 @@
 #pragma once
 #include <cstddef>
 #include <cstdint>
+#include <istream>
 #include <string>
 
 namespace rotaweave::io {
@@ -29,6 +30,16 @@ void checkInputSize(const std::string& path, const std::string& what);
 /// The whole file, read after checking its size; throws InputError if it cannot be opened, is
 /// a folder or is too large (a pipe or device is read up to the limit, then refused).
 std::string readInputFile(const std::string& path, const std::string& what);
+
+/// Rows and cells of CSV text as parseCsv splits it (blank lines are not rows), counted while
+/// streaming, without storing cells.
+struct CsvShape {
+  size_t rows = 0;      ///< Rows read (up to the one that passed a limit).
+  size_t widest = 0;    ///< Cells in the widest row read.
+  int line = 1;         ///< Where the row over a limit starts (when stopped).
+  bool stopped = false; ///< Reading stopped at a row over `maxRows` or a cell over `maxCells`.
+};
+CsvShape measureCsv(std::istream& in, size_t maxRows, size_t maxCells);
 
 /// Streams a roster CSV a few kilobytes at a time and throws InputError as soon as it has more
 /// than `staff` + kSpareCsvRows non-blank rows, or a row of more than `days` + 1 +

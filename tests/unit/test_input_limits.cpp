@@ -4,6 +4,8 @@
 
 #include <filesystem>
 #include <fstream>
+#include <random>
+#include <sstream>
 
 #include "fixtures.hpp"
 #include "io/control_chars.hpp"
@@ -108,6 +110,41 @@ TEST_SUITE("input limits") {
     CHECK(csvError(csv).find("more than 104 cells but the period has 3 days") != std::string::npos);
     // Quoted commas are not cells.
     CHECK_NOTHROW(io::checkRosterCsvShape(test::writeTemp(kCsvHeader + "ana,\"" + std::string(200, ',') + "\",,\n", ".csv"), 2, 3));
+  }
+}
+
+TEST_SUITE("input limits") {
+  TEST_CASE("the streaming count agrees with the parser on random CSV text") {
+    // Quotes, commas and line ends in every order: the count that refuses large files must
+    // never see more rows or cells than the parser that reads the accepted ones.
+    std::mt19937 rng(7);
+    const char alphabet[] = {'a', ',', '"', '\r', '\n', ' '};
+    int compared = 0;
+    for (int round = 0; round < 20000; ++round) {
+      std::string text(rng() % 24, 'a');
+      for (char& c : text) c = alphabet[rng() % sizeof alphabet];
+      std::vector<io::CsvRow> rows;
+      try {
+        rows = io::parseCsv(text, "random.csv");
+      } catch (const io::InputError&) {
+        continue;  // an unclosed quote
+      }
+      size_t widest = 0;
+      for (const auto& r : rows) widest = std::max(widest, r.cells.size());
+      std::istringstream in(text);
+      const io::CsvShape shape = io::measureCsv(in, 1000, 1000);
+      CAPTURE(text);
+      CHECK(shape.rows == rows.size());
+      CHECK(shape.widest == widest);
+      if (!rows.empty()) {
+        std::istringstream again(text);
+        const io::CsvShape stopped = io::measureCsv(again, rows.size() - 1, 1000);
+        CHECK(stopped.stopped);
+        CHECK(stopped.line == rows.back().line);
+      }
+      ++compared;
+    }
+    CHECK(compared > 5000);
   }
 }
 
