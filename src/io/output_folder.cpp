@@ -106,6 +106,8 @@ void OutputFolder::prepare(const fs::path& out) {
                       (ec ? ec.message() : std::string("a folder of that name is in the way")) +
                       "; a run writes its files there first and then swaps them in, so that folder must be writable; "
                       "choose another --out");
+  // The new set keeps the folder's permissions (a folder kept private stays private).
+  if (previousMode_ != 0) ::chmod(staging_.c_str(), static_cast<mode_t>(previousMode_));
   // A probe, so that a full or read-only file system is found now rather than after the search.
   const fs::path probe = staging_ / ".probe";
   std::FILE* f = std::fopen(probe.c_str(), "wb");
@@ -146,6 +148,7 @@ void OutputFolder::checkTarget() {
   // folder made read-only is one its owner wants left alone.
   if ((st.st_mode & 0222) == 0 || ::access(target_.c_str(), W_OK) != 0)
     throw OutputError("the output folder '" + shown_ + "' is read-only; make it writable (chmod u+w) or choose another --out");
+  previousMode_ = st.st_mode & 07777;
   if (::stat(target_.parent_path().c_str(), &above) == 0 && above.st_dev != st.st_dev)
     throw OutputError("the output folder '" + shown_ + "' is a mount point; a run swaps its folder in whole, so give a folder "
                       "inside it as --out");

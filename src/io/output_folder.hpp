@@ -55,6 +55,7 @@ class OutputFolder {
   std::filesystem::path target_, staging_;  ///< Absolute.
   std::vector<std::filesystem::path> createdAbove_;  ///< Folders above `out` this run created, outermost first.
   std::optional<OutputLock> lock_;
+  unsigned previousMode_ = 0;  ///< Permission bits of the existing `out`, given to the new set.
   bool hadPrevious_ = false, committed_ = false;
 };
 

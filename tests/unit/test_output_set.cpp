@@ -88,6 +88,17 @@ TEST_SUITE("output set") {
     CHECK(listing(root) == std::vector<std::string>{"out", "out/calendars", "out/calendars/ana.ics", "out/report.txt", "out/roster.csv"});
   }
 
+  TEST_CASE("the new set keeps the folder's permissions") {
+    const fs::path root = scratch("mode");
+    writeSet(root / "out", "1", {});
+    ::chmod((root / "out").c_str(), 0700);
+    writeSet(root / "out", "2", {});
+    struct stat st{};
+    REQUIRE(::stat((root / "out").c_str(), &st) == 0);
+    CHECK((st.st_mode & 07777) == 0700);
+    CHECK(read(root / "out" / "roster.csv") == "roster 2\n");
+  }
+
   TEST_CASE("a failed write keeps the previous set untouched and says so") {
     const fs::path root = scratch("keep");
     writeSet(root / "out", "1", {"ana", "ben"});
