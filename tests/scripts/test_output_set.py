@@ -8,6 +8,8 @@
    run that fails leaves no folder at all; a run that succeeds leaves a set whose files agree.
 2. Two runs into one --out: while a solve holds it, a second solve and a check are refused with
    exit 2 and a message naming the first run; the first then finishes (SIGINT) with a whole set.
+   Two short solves started together, four times: each writes a whole set or is refused, and
+   the folder's roster.csv, report.json and calendars always agree.
 3. A read-only --out is refused before the scenario is read (a broken scenario is not even
    reported) and before any search (an unbounded search is refused too), and left untouched.
 4. Oversized input: a roster CSV of 1,000,000 rows, a staff list of 737,000 people and a 65 MB
@@ -156,6 +158,23 @@ def concurrent_runs():
     set_agrees(out, "the first of two runs")
 
 
+def simultaneous_starts():
+    """Two short solves started together, a few times: whichever way they overlap, each either
+    writes a whole set or is refused, and the folder always holds one run's set."""
+    out = os.path.join(WORK, "race", "out")
+    for attempt in range(4):
+        procs = [subprocess.Popen([BINARY, "solve", SCENARIO, "--out", out, "--seed", str(10 + attempt * 2 + k)] + FAST,
+                                  stdout=subprocess.DEVNULL, stderr=subprocess.PIPE, text=True) for k in range(2)]
+        results = [(p.wait(timeout=600), p.stderr.read()) for p in procs]
+        for p in procs:
+            p.stderr.close()
+        fine = all(code in (0, 1) or (code == 2 and "another rotaweave run" in err) for code, err in results)
+        check(fine and any(code in (0, 1) for code, _ in results),
+              f"simultaneous starts {attempt + 1}: each run writes or is refused ({[c for c, _ in results]})")
+        check(beside(out) == [], f"simultaneous starts {attempt + 1}: nothing left beside --out")
+        set_agrees(out, f"simultaneous starts {attempt + 1}")
+
+
 def read_only_folder():
     out = os.path.join(WORK, "readonly", "out")
     code, err = run(["solve", SCENARIO, "--out", out, "--seed", "1"] + FAST)
@@ -278,6 +297,7 @@ def main():
     os.makedirs(WORK)
     disk_full()
     concurrent_runs()
+    simultaneous_starts()
     read_only_folder()
     oversized_inputs()
     nul_bytes()
