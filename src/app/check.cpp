@@ -8,11 +8,12 @@ namespace rotaweave::app {
 
 Outcome check(const std::string& scenario, const std::string& rosterPath, const std::filesystem::path& out) {
   refuseToOverwrite(rosterPath, out);
+  io::OutputFolder folder(out);  // checked and locked before anything is read
   const model::Problem problem = io::loadScenario(scenario);
   const model::Roster roster = io::readRosterCsv(rosterPath, problem);
   report::RunInfo run;
   run.command = "check";
-  return reportAndWrite(rules::RuleSet(problem), roster, std::move(run), out);
+  return reportAndWrite(rules::RuleSet(problem), roster, std::move(run), folder);
 }
 
 }  // namespace rotaweave::app

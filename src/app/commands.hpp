@@ -1,7 +1,8 @@
 /// @brief The three use cases behind the CLI: check, solve and replan.
 ///
 /// Each loads and validates all input first, so bad input writes nothing, then computes,
-/// then writes every output atomically. Errors are thrown (io::InputError, io::OutputError).
+/// then writes the outputs as one set (io/output_folder.hpp), into an --out checked and locked
+/// before anything was read. Errors are thrown (io::InputError, io::OutputError).
 #pragma once
 #include <chrono>
 #include <filesystem>

@@ -27,8 +27,7 @@ double outputReserve(const model::Problem& problem, double timeLimit) {
   return std::min(kFixed + kPerCell * cells, timeLimit / 5);
 }
 
-Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roster, report::RunInfo run,
-                       const std::filesystem::path& out) {
+Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roster, report::RunInfo run, io::OutputFolder& out) {
   const model::Problem& problem = ruleSet.problem();
   eval::Evaluator evaluator(ruleSet);
   Outcome outcome;
@@ -37,7 +36,8 @@ Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roste
   analysis::compareWithRoster(capacity, problem, roster, outcome.report.breaches);
   outcome.report.capacity = std::move(capacity);
   if (problem.published) outcome.report.changes = report::computeChanges(problem, roster);
-  io::writeStandardOutputs(out, io::OutputBundle{problem, roster, outcome.report});
+  const io::OutputBundle bundle{problem, roster, outcome.report};
+  out.writeSet([&bundle](const std::filesystem::path& dir) { io::writeStandardOutputs(dir, bundle); });
   outcome.exitCode = outcome.report.hardCount > 0 ? 1 : 0;
   return outcome;
 }

@@ -4,6 +4,7 @@
 #include <vector>
 
 #include "app/commands.hpp"
+#include "io/output_folder.hpp"
 #include "model/problem.hpp"
 #include "model/roster.hpp"
 #include "rules/rule_set.hpp"
@@ -13,12 +14,13 @@ namespace rotaweave::app {
 /// Throws io::OutputError if writing roster.csv into `out` would replace the file `input`.
 void refuseToOverwrite(const std::filesystem::path& input, const std::filesystem::path& out);
 
-/// Runs the search from `seeds` (may be empty), then reports and writes the best roster.
+/// Runs the search from `seeds` (may be empty), then reports and writes the best roster into
+/// `out` (prepared, and so checked and locked, before the input was read).
 Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::Roster>& seeds, const SolveRequest& request,
-                       const char* command);
+                       const char* command, io::OutputFolder& out);
 
-Outcome reportAndWrite(const rules::RuleSet& rules, const model::Roster& roster, report::RunInfo run,
-                       const std::filesystem::path& out);
+/// Explains and reports `roster`, then writes the whole output set into `out` as one.
+Outcome reportAndWrite(const rules::RuleSet& rules, const model::Roster& roster, report::RunInfo run, io::OutputFolder& out);
 
 /// Seconds the outputs of a run on `problem` are allowed for: taken from the time limit, so
 /// that the whole run, loading to the last file, keeps it. Grows with the roster's size,

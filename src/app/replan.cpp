@@ -8,7 +8,9 @@
 #include "app/commands.hpp"
 #include "app/pipeline.hpp"
 #include "io/csv.hpp"
+#include "io/control_chars.hpp"
 #include "io/input_error.hpp"
+#include "io/input_limits.hpp"
 #include "io/roster_csv.hpp"
 #include "io/scenario_loader.hpp"
 
@@ -30,6 +32,7 @@ std::string someIds(const std::vector<std::string>& ids) {
 /// A roster for another month or another team gets one message that says so, rather than an
 /// error about its first odd cell.
 void checkPublishedFits(const std::string& path, const model::Problem& p) {
+  io::checkRosterCsvShape(path, p.staff.size(), p.days);  // before any row is stored
   const auto rows = io::readCsvFile(path, "published roster given to --roster");
   if (rows.empty()) return;  // readRosterCsv explains
   const auto& header = rows.front().cells;
@@ -67,6 +70,9 @@ void applyAbsence(model::Problem& p, const std::string& text, DayIdx first) {
   auto bad = [&](const std::string& why) {
     wrong(why + "; write STAFF:YYYY-MM-DD or STAFF:YYYY-MM-DD..YYYY-MM-DD (optionally :REASON at the end)");
   };
+  if (const auto found = io::findControlChar(text, false))
+    wrong("control character " + io::codePointName(found->code) + " at character " + std::to_string(found->column) +
+          "; write the absence with printable characters only");
   const size_t colon = text.find(':');
   if (colon == std::string::npos) bad("missing ':' between the staff id and the date");
   const std::string id = text.substr(0, colon);
@@ -103,6 +109,7 @@ void applyAbsence(model::Problem& p, const std::string& text, DayIdx first) {
 
 Outcome replan(const ReplanRequest& request) {
   refuseToOverwrite(request.publishedRoster, request.solve.out);
+  io::OutputFolder out(request.solve.out);  // checked and locked before anything is read or searched
   model::Problem problem = io::loadScenario(request.solve.scenario);
   const auto from = model::parseIsoDate(request.from);
   if (!from) throw io::InputError("--from " + request.from, 0, 0, "invalid date; write YYYY-MM-DD");
@@ -149,7 +156,7 @@ Outcome replan(const ReplanRequest& request) {
       else if (problem.absent[problem.cell(s, d)]) seed.at(s, d) = kOff;
     }
 
-  return searchAndWrite(problem, {seed}, request.solve, "replan");
+  return searchAndWrite(problem, {seed}, request.solve, "replan", out);
 }
 
 }  // namespace rotaweave::app

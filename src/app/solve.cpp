@@ -5,15 +5,13 @@
 #include "app/commands.hpp"
 #include "app/pipeline.hpp"
 #include "app/progress.hpp"
-#include "io/atomic_file.hpp"
 #include "io/scenario_loader.hpp"
 #include "search/stop_signal.hpp"
 
 namespace rotaweave::app {
 
 Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::Roster>& seeds, const SolveRequest& request,
-                       const char* command) {
-  io::ensureDirectory(request.out);  // fail before a long search, not after it
+                       const char* command, io::OutputFolder& out) {
   const rules::RuleSet ruleSet(problem);
   search::installStopSignals();
   ProgressPrinter printer(request.options.quiet);
@@ -26,12 +24,13 @@ Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::R
   printer.finish(result);
   report::RunInfo run{command, result.seed, result.islands, result.threads, result.generations,
                       result.seconds, result.stopReason, result.history, result.lowerBound};
-  return reportAndWrite(ruleSet, result.best, std::move(run), request.out);
+  return reportAndWrite(ruleSet, result.best, std::move(run), out);
 }
 
 Outcome solve(const SolveRequest& request) {
+  io::OutputFolder out(request.out);  // checked and locked before anything is read or searched
   const model::Problem problem = io::loadScenario(request.scenario);
-  return searchAndWrite(problem, {}, request, "solve");
+  return searchAndWrite(problem, {}, request, "solve", out);
 }
 
 }  // namespace rotaweave::app

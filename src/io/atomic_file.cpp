@@ -3,13 +3,36 @@
 
 #include <unistd.h>
 
+#include <cerrno>
 #include <cstdio>
+#include <cstring>
 
+#include "io/disk_fault.hpp"
 #include "io/input_error.hpp"
 
 namespace rotaweave::io {
 
 namespace fs = std::filesystem;
+
+namespace {
+
+void renameIntoPlace(const fs::path& temporary, const fs::path& path) {
+  std::error_code ec;
+  fs::rename(temporary, path, ec);
+  if (ec) {
+    fs::remove(temporary, ec);
+    throw OutputError("cannot write '" + path.string() + "'; check that the folder is writable");
+  }
+}
+
+[[noreturn]] void failedWrite(const fs::path& temporary, const fs::path& path, int error) {
+  std::error_code ec;
+  fs::remove(temporary, ec);
+  throw OutputError("cannot write '" + path.string() + "': " + (error ? std::strerror(error) : "write failed") +
+                    (error == ENOSPC || error == EDQUOT ? " (disk full)" : ""));
+}
+
+}  // namespace
 
 void ensureDirectory(const fs::path& dir) {
   std::error_code ec;
@@ -25,25 +48,23 @@ fs::path temporaryPathFor(const fs::path& path) {
 
 void commitTemporary(const fs::path& temporary, const fs::path& path) {
   std::error_code ec;
-  fs::rename(temporary, path, ec);
-  if (ec) {
-    fs::remove(temporary, ec);
-    throw OutputError("cannot write '" + path.string() + "'; check that the folder is writable");
-  }
+  const auto size = fs::file_size(temporary, ec);
+  if (!ec && claimOutputBytes(static_cast<size_t>(size)) < size) failedWrite(temporary, path, ENOSPC);
+  renameIntoPlace(temporary, path);
 }
 
 void writeFileAtomic(const fs::path& path, const std::string& content) {
   const fs::path tmp = temporaryPathFor(path);
   std::FILE* f = std::fopen(tmp.c_str(), "wb");
-  if (!f) throw OutputError("cannot write '" + path.string() + "'; check that the folder is writable");
-  const bool ok = std::fwrite(content.data(), 1, content.size(), f) == content.size() && std::fflush(f) == 0 &&
-                  ::fsync(fileno(f)) == 0;
-  if (std::fclose(f) != 0 || !ok) {
-    std::error_code ec;
-    fs::remove(tmp, ec);
-    throw OutputError("cannot write '" + path.string() + "' (disk full?)");
-  }
-  commitTemporary(tmp, path);
+  if (!f) throw OutputError("cannot write '" + path.string() + "': " + std::strerror(errno) + "; check that the folder is writable");
+  const size_t fits = claimOutputBytes(content.size());
+  errno = 0;
+  bool ok = std::fwrite(content.data(), 1, fits, f) == fits && std::fflush(f) == 0 && ::fsync(fileno(f)) == 0;
+  int error = errno;
+  if (ok && fits < content.size()) ok = false, error = ENOSPC;  // the simulated disk is full
+  if (std::fclose(f) != 0 && ok) ok = false, error = errno;
+  if (!ok) failedWrite(tmp, path, error);
+  renameIntoPlace(tmp, path);
 }
 
 }  // namespace rotaweave::io

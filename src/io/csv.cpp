@@ -4,7 +4,9 @@
 #include <fstream>
 #include <sstream>
 
+#include "io/control_chars.hpp"
 #include "io/input_error.hpp"
+#include "io/input_limits.hpp"
 
 namespace rotaweave::io {
 std::vector<CsvRow> parseCsv(const std::string& input, const std::string& file) {
@@ -12,6 +14,7 @@ std::vector<CsvRow> parseCsv(const std::string& input, const std::string& file) 
   if (text.substr(0, 3) == "\xEF\xBB\xBF") text.remove_prefix(3);
   if (const int bad = badUtf8Line(text))
     throw InputError(file, bad, 0, "the file is not valid UTF-8; save it as \"CSV UTF-8\" from the spreadsheet");
+  rejectControlChars(text, file);
   std::vector<CsvRow> rows;
   CsvRow row;
   std::string cell;
@@ -64,11 +67,7 @@ std::vector<CsvRow> parseCsv(const std::string& input, const std::string& file) 
 }
 
 std::vector<CsvRow> readCsvFile(const std::string& path, const std::string& what) {
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError(path, 0, 0, "cannot open the " + what + "; check the path");
-  std::stringstream buffer;
-  buffer << in.rdbuf();
-  return parseCsv(buffer.str(), path);
+  return parseCsv(readInputFile(path, what), path);
 }
 
 std::string trimCell(const std::string& s) {

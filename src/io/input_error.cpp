@@ -4,6 +4,8 @@
 #include <algorithm>
 #include <cctype>
 
+#include "io/control_chars.hpp"
+
 namespace rotaweave::io {
 namespace {
 
@@ -28,10 +30,11 @@ std::string lowered(std::string s) {
 }  // namespace
 
 std::string InputError::format(const std::string& file, int line, int column, const std::string& message) {
-  std::string where = file;
+  // Control characters are shown escaped, so that a message is never cut short at a NUL.
+  std::string where = escapeControlChars(file);
   if (line > 0) where.append(":").append(std::to_string(line));
   if (line > 0 && column > 0) where.append(":").append(std::to_string(column));
-  return where.append(": ").append(message);
+  return where.append(": ").append(escapeControlChars(message));
 }
 
 int badUtf8Line(std::string_view s) {

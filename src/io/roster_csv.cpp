@@ -4,6 +4,7 @@
 
 #include "io/csv.hpp"
 #include "io/input_error.hpp"
+#include "io/input_limits.hpp"
 
 namespace rotaweave::io {
 namespace {
@@ -37,6 +38,7 @@ TaskIdx parseCell(const std::string& cell, StaffIdx s, const model::Problem& p, 
 }  // namespace
 
 model::Roster readRosterCsv(const std::string& path, const model::Problem& p) {
+  checkRosterCsvShape(path, p.staff.size(), p.days);  // before any row is stored
   const auto rows = readCsvFile(path, "roster file");
   if (rows.empty()) throw InputError(path, 0, 0, "the roster file is empty; expected a header staff,<dates>");
 

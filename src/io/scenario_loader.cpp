@@ -6,6 +6,7 @@
 #include <regex>
 #include <set>
 
+#include "io/input_limits.hpp"
 #include "io/loader_context.hpp"
 
 namespace rotaweave::io {
@@ -80,7 +81,6 @@ using detail::LoadContext;
 constexpr int kMaxDays = 400;
 constexpr int kMaxHistory = 60;
 constexpr size_t kMaxTasks = 2000;
-constexpr size_t kMaxStaff = 5000;
 
 void loadPeriod(LoadContext& ctx, const Field& f) {
   f.allowOnly({"start", "end"});

@@ -9,6 +9,9 @@
 
 #include <yaml-cpp/depthguard.h>
 
+#include "io/control_chars.hpp"
+#include "io/input_limits.hpp"
+
 namespace rotaweave::io {
 namespace {
 
@@ -18,16 +21,17 @@ std::string quoted(const std::string& s) { return "'" + s + "'"; }
 }  // namespace
 
 YAML::Node Field::parseFile(const std::string& file) {
-  std::ifstream in(file, std::ios::binary);
-  if (!in) throw InputError(file, 0, 0, "cannot open the file; check the path and that it is readable");
-  std::stringstream buffer;
-  buffer << in.rdbuf();
-  const std::string text = buffer.str();
+  // Size first (from the file system), then the number of nodes and people (from the parser's
+  // events, without a tree), and only then the whole file and its tree.
+  checkInputSize(file, "file");
+  checkYamlShape(file);
+  const std::string text = readInputFile(file, "file");
   if (text.find_first_not_of(" \t\r\n") == std::string::npos)
     throw InputError(file, 0, 0, "the file is empty; a scenario needs at least period, shifts, skills and staff, "
                                  "a rule file a list: of rules");
   if (const int line = badUtf8Line(text))
     throw InputError(file, line, 0, "the file is not valid UTF-8; save it as UTF-8 text");
+  rejectControlChars(text, file);
   try {
     return YAML::Load(text);
   } catch (const YAML::DeepRecursion& e) {
@@ -77,6 +81,7 @@ std::vector<std::pair<std::string, Field>> Field::entries() const {
   for (const auto& kv : node_) {
     const std::string key = kv.first.Scalar();
     Field keyField(kv.first, path_, file_);
+    keyField.rejectControl(key);
     if (!seen.insert(key).second) keyField.fail("duplicate key " + quoted(key) + "; each key may appear once");
     out.emplace_back(key, Field(kv.second, path_.empty() ? key : path_ + "." + key, file_));
   }
@@ -101,7 +106,15 @@ void Field::allowOnly(const std::vector<std::string>& allowed) const {
 
 std::string Field::text() const {
   if (!node_.IsScalar() || node_.Scalar().empty()) fail("expected a non-empty text value");
+  rejectControl(node_.Scalar());
   return node_.Scalar();
+}
+
+void Field::rejectControl(const std::string& value) const {
+  // Raw control bytes are refused before parsing; these come from escapes ("\0", "\x07").
+  if (const auto found = findControlChar(value))
+    fail("control character " + codePointName(found->code) + " in this value (from an escape such as \\0); names, ids "
+         "and other text may hold printable characters only: remove it");
 }
 
 std::string Field::id() const {

@@ -49,6 +49,8 @@ class Field {
   int clockTime() const;
 
   [[noreturn]] void fail(const std::string& message) const;
+  /// Fails if `value` (this node's text) holds a control character (see io/control_chars.hpp).
+  void rejectControl(const std::string& value) const;
 
  private:
   YAML::Node node_;

@@ -6,6 +6,7 @@
 #include <string>
 
 #include "fuzz_common.hpp"
+#include "io/control_chars.hpp"
 #include "io/input_error.hpp"
 #include "io/roster_csv.hpp"
 #include "io/scenario_loader.hpp"
@@ -23,6 +24,17 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t* data, size_t size) {
   }
   // Whatever loads is consistent: a roster written for it reads back unchanged.
   if (problem.staffCount() <= 0 || problem.days <= 0 || problem.shifts.empty()) std::abort();
+  // No control character reaches the outputs: every text they print was refused or is clean.
+  auto clean = [](const std::string& s) {
+    if (io::findControlChar(s)) std::abort();
+  };
+  clean(problem.name);
+  for (const auto& s : problem.shifts) clean(s.id), clean(s.label);
+  for (const auto& s : problem.skills) clean(s);
+  for (const auto& c : problem.contracts) clean(c.id);
+  for (const auto& p : problem.staff) clean(p.id), clean(p.name);
+  for (const auto& r : problem.absenceReason) clean(r);
+  for (const auto& r : problem.rules) clean(r.id);
   const model::Roster off(problem.staffCount(), problem.days);
   const std::string csv = io::rosterCsvText(off, problem);
   const std::string csvPath = fuzz::writeScratch("roundtrip.csv", reinterpret_cast<const uint8_t*>(csv.data()), csv.size());

@@ -16,11 +16,11 @@ if grep -q 'tests/fuzz' "$root/CMakeLists.txt"; then
 else
   cmake -S "$root/tests/fuzz" -B "$build" -DCMAKE_CXX_COMPILER="$cxx" -DCMAKE_BUILD_TYPE=RelWithDebInfo >/dev/null
 fi
-cmake --build "$build" -j"${JOBS:-2}" --target fuzz_scenario fuzz_roster_csv >/dev/null
+cmake --build "$build" -j"${JOBS:-2}" --target fuzz_scenario fuzz_roster_csv fuzz_csv_shape >/dev/null
 bin="$(dirname "$(find "$build" -name fuzz_scenario -type f -perm -u+x | head -n1)")"
 
 status=0
-for target in scenario:fuzz_scenario csv:fuzz_roster_csv; do
+for target in scenario:fuzz_scenario csv:fuzz_roster_csv csv:fuzz_csv_shape; do
   seeds="${target%%:*}" exe="${target##*:}"
   work="$build/corpus/$seeds" findings="$build/findings/$seeds"
   mkdir -p "$work" "$findings"
