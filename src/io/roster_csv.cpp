@@ -3,6 +3,8 @@
 
 
 #include <algorithm>
+#include <cctype>
+#include <cstdio>
 
 #include "io/csv.hpp"
 #include "io/input_error.hpp"
@@ -69,6 +71,16 @@ std::optional<TaskIdx> parseRosterCell(const std::string& cell, StaffIdx s, cons
 
 model::Roster readRosterCsv(const std::string& path, const model::Problem& p) {
   if (xlsx_read::startsLikeZip(path)) return readRosterXlsx(path, p);
+  if (path.size() > 5) {
+    std::string ext = path.substr(path.size() - 5);
+    std::transform(ext.begin(), ext.end(), ext.begin(), [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
+    if (ext == ".xlsx" || ext == ".xlsm")
+      if (std::FILE* f = std::fopen(path.c_str(), "rb")) {
+        std::fclose(f);
+        throw InputError(path, 0, 0, "the file is named " + ext + " but is not a workbook (an xlsx file is a zip container, and this one "
+                                     "does not start like one); save it again from the spreadsheet program as an Excel workbook (.xlsx), or give the roster as CSV");
+      }
+  }
   const auto rows = readCsvFile(path, "roster file");
   if (rows.empty()) throw InputError(path, 0, 0, "the roster file is empty; expected a header staff,<dates>");
 

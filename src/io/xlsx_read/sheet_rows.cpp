@@ -105,6 +105,7 @@ SheetData readSheet(ZipArchive& zip, const std::string& part, const std::vector<
   int phonetic = 0;
 
   auto finishCell = [&]() {
+    if (hasValue && value.empty() && type != "inlineStr") hasValue = false;  // <v></v>, as some writers leave a formula unsaved
     SheetCell cell;
     cell.row = row;
     cell.col = col;
