@@ -38,7 +38,6 @@ class Grid {
   std::string colName(int col) const {
     return source_.sheet.empty() ? "column " + std::to_string(col) : "column " + xlsx_read::cellName(0, col);
   }
-  std::string where() const { return source_.sheet.empty() ? "the file" : "the sheet " + source_.sheet; }
 
   const std::map<int, std::map<int, const GridCell*>>& rows() const { return rows_; }
 
