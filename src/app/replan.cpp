@@ -12,6 +12,7 @@
 #include "io/input_error.hpp"
 #include "io/input_limits.hpp"
 #include "io/roster_csv.hpp"
+#include "io/xlsx_read/zip_archive.hpp"
 #include "io/scenario_loader.hpp"
 
 namespace rotaweave::app {
@@ -32,6 +33,7 @@ std::string someIds(const std::vector<std::string>& ids) {
 /// A roster for another month or another team gets one message that says so, rather than an
 /// error about its first odd cell.
 void checkPublishedFits(const std::string& path, const model::Problem& p) {
+  if (io::xlsx_read::startsLikeZip(path)) return;  // a workbook: readRosterCsv locates the table and explains
   io::checkRosterCsvShape(path, p.staff.size(), p.days);  // before any row is stored
   const auto rows = io::readCsvFile(path, "published roster given to --roster");
   if (rows.empty()) return;  // readRosterCsv explains

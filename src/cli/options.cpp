@@ -14,8 +14,8 @@ const char* kUsage =
     "usage:\n"
     "  rotaweave solve  SCENARIO.yaml [--out DIR] [--time-limit SEC] [--generations N] [--seed N]\n"
     "                                 [--threads N] [--islands N] [--quiet]\n"
-    "  rotaweave check  SCENARIO.yaml --roster ROSTER.csv [--out DIR]\n"
-    "  rotaweave replan SCENARIO.yaml --roster PUBLISHED.csv --from DATE\n"
+    "  rotaweave check  SCENARIO.yaml --roster ROSTER.csv|ROSTER.xlsx [--out DIR]\n"
+    "  rotaweave replan SCENARIO.yaml --roster PUBLISHED.csv|PUBLISHED.xlsx --from DATE\n"
     "                                 [--absence STAFF:DATE[..DATE][:REASON]]... [--out DIR] [solve options]\n"
     "  rotaweave --help | --version\n";
 
@@ -70,7 +70,7 @@ std::string helpText() {
   out << "rotaweave " << kVersion << ": shift rosters from YAML scenarios\n\n" << kUsage << "\n";
   po::options_description all;
   all.add(common()).add(solverOptions());
-  all.add_options()("roster", "check, replan: the roster CSV to check or the published roster")(
+  all.add_options()("roster", "check, replan: the roster to check or the published roster (CSV or xlsx workbook)")(
       "from", "replan: first date to re-plan (YYYY-MM-DD)")("absence", "replan: STAFF:DATE, STAFF:DATE..DATE or either with :REASON, repeatable");
   out << all;
   out << "\nExit status: 0 done, no hard violation; 1 hard violations remain; 2 bad input or usage; 3 internal error.\n";
@@ -103,7 +103,7 @@ Parsed parseCommandLine(int argc, char** argv) {
 
   if (command == "check") {
     auto desc = common();
-    desc.add_options()("roster", po::value<std::string>()->required(), "roster CSV to check");
+    desc.add_options()("roster", po::value<std::string>()->required(), "roster to check (CSV or xlsx workbook)");
     const auto vm = parse(args, desc, "check");
     return CheckArgs{vm["scenario"].as<std::string>(), vm["roster"].as<std::string>(), vm["out"].as<std::string>()};
   }
@@ -111,7 +111,7 @@ Parsed parseCommandLine(int argc, char** argv) {
     auto desc = common();
     desc.add(solverOptions());
     if (command == "replan")
-      desc.add_options()("roster", po::value<std::string>()->required(), "published roster CSV")(
+      desc.add_options()("roster", po::value<std::string>()->required(), "published roster (CSV or xlsx workbook)")(
           "from", po::value<std::string>()->required(), "first date to re-plan")(
           "absence", po::value<std::vector<std::string>>()->composing(), "STAFF:DATE[..DATE][:REASON], repeatable");
     const auto vm = parse(args, desc, command.c_str());
