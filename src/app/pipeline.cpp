@@ -28,7 +28,7 @@ double outputReserve(const model::Problem& problem, double timeLimit) {
 }
 
 Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roster, report::RunInfo run,
-                       const std::filesystem::path& out) {
+                       const std::filesystem::path& out, const BaselineInput* baseline) {
   const model::Problem& problem = ruleSet.problem();
   eval::Evaluator evaluator(ruleSet);
   Outcome outcome;
@@ -37,6 +37,9 @@ Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roste
   analysis::compareWithRoster(capacity, problem, roster, outcome.report.breaches);
   outcome.report.capacity = std::move(capacity);
   if (problem.published) outcome.report.changes = report::computeChanges(problem, roster);
+  if (baseline)
+    outcome.report.baseline = report::compareWithBaseline(problem, baseline->roster, evaluator.explain(baseline->roster), roster,
+                                                          outcome.report.breaches, baseline->source);
   io::writeStandardOutputs(out, io::OutputBundle{problem, roster, outcome.report});
   outcome.exitCode = outcome.report.hardCount > 0 ? 1 : 0;
   return outcome;
