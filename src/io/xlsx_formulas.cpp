@@ -102,6 +102,7 @@ std::string RowFormulas::weekends(lxw_row_t row, StaffIdx staff) const {
   for (const std::string& c : codes)
     if (std::find(lists.absenceCodes.begin(), lists.absenceCodes.end(), c) != lists.absenceCodes.end()) absenceCodes.push_back(c);
   std::string f;
+  int blocks = 0;
   for (DayIdx d = 0; d < problem.days;) {
     const int block = problem.weekendBlock[static_cast<size_t>(d)];
     if (block < 0) {
@@ -114,9 +115,11 @@ std::string RowFormulas::weekends(lxw_row_t row, StaffIdx staff) const {
     std::string worked = "COUNTA(" + range + ")";
     for (const std::string& c : absenceCodes) worked += "-COUNTIF(" + range + "," + exactCriterion(c) + ")";
     f += (f.empty() ? "=" : "+") + std::string("(") + worked + ">0)";
+    ++blocks;
     d = last + 1;
   }
-  return f;
+  // One comparison alone would show TRUE or FALSE; a sum of them is a number.
+  return blocks == 1 ? f + "*1" : f;
 }
 
 std::string coverAssignedFormula(const model::Problem& p, const RosterLayout& l, DayIdx day, TaskIdx task) {

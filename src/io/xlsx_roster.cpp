@@ -354,6 +354,7 @@ void writeRosterSheet(Book& bk) {
   const RosterWidths widths = setColumns(bk, ws, l);
   addRosterValidation(bk, ws);
   addRosterConditionalFormats(bk, ws, l);
+  addHoursConditionalFormats(bk, ws, l);
   setRosterPrint(bk, ws, l, widths, end - 1);
   worksheet_freeze_panes(ws, kFirstPersonRow, kFirstDayCol);
   worksheet_set_comments_author(ws, const_cast<char*>("rotaweave"));

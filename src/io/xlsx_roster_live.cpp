@@ -106,6 +106,34 @@ void addRosterConditionalFormats(Book& bk, lxw_worksheet* ws, const RosterLayout
   blanks(dayRuns(p, [&](size_t d) { return !p.holiday[d] && !p.weekend[d]; }), 0xFFFFFF);
 }
 
+void addHoursConditionalFormats(Book& bk, lxw_worksheet* ws, const RosterLayout& l) {
+  const model::Problem& p = bk.data.problem;
+  lxw_format* within = conditionalLook(bk.workbook, 0xFFFFFF, 0x000000);
+  lxw_format* hardOut = conditionalLook(bk.workbook, 0xFFFFFF, kHardColour, true);
+  lxw_format* softOut = conditionalLook(bk.workbook, 0xFFFFFF, kSoftColour, true);
+  for (StaffIdx s = 0; s < p.staffCount(); ++s) {
+    const int contract = p.staff[static_cast<size_t>(s)].contract;
+    if (contract < 0) continue;
+    const model::Contract& c = p.contracts[static_cast<size_t>(contract)];
+    if (!c.minMinutes && !c.maxMinutes) continue;
+    const lxw_row_t row = personRow(s);
+    const std::string hours = cellRef(row, l.totalsCol), lo = cellRef(row, l.minCol()), hi = cellRef(row, l.maxCol());
+    std::vector<std::string> outside;
+    if (c.minMinutes) outside.push_back(hours + "<" + lo);
+    if (c.maxMinutes) outside.push_back(hours + ">" + hi);
+    std::string test = outside.size() == 1 ? outside.front() : "OR(" + outside[0] + "," + outside[1] + ")";
+    std::string out = "=" + test, in = "=NOT(" + test + ")";
+    lxw_conditional_format cf{};
+    cf.type = LXW_CONDITIONAL_TYPE_FORMULA;
+    cf.value_string = out.data();
+    cf.format = c.hard ? hardOut : softOut;
+    check(worksheet_conditional_format_cell(ws, row, l.totalsCol, &cf), "roster hours colour");
+    cf.value_string = in.data();
+    cf.format = within;
+    check(worksheet_conditional_format_cell(ws, row, l.totalsCol, &cf), "roster hours colour");
+  }
+}
+
 void setRosterPrint(Book& bk, lxw_worksheet* ws, const RosterLayout& l, const RosterWidths& w, lxw_row_t lastRow) {
   const model::Problem& p = bk.data.problem;
   worksheet_set_landscape(ws);

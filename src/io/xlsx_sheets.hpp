@@ -98,6 +98,9 @@ void addRosterValidation(Book& book, lxw_worksheet* ws);
 /// Shift colours, the absence fill and the day-off fills follow what a cell holds, so an
 /// edited cell looks like one we wrote.
 void addRosterConditionalFormats(Book& book, lxw_worksheet* ws, const RosterLayout& layout);
+/// Hours outside the contract bounds in red (hard contract) or amber, inside in black, as the
+/// Hours formula changes.
+void addHoursConditionalFormats(Book& book, lxw_worksheet* ws, const RosterLayout& layout);
 /// Landscape A4, one or two weeks a page (column breaks), headers and name columns repeated,
 /// scaled to fit the page height where the type stays readable.
 void setRosterPrint(Book& book, lxw_worksheet* ws, const RosterLayout& layout, const RosterWidths& widths, lxw_row_t lastRow);

@@ -203,6 +203,9 @@ def main():
     expect("shift counts are COUNTIF formulas over the row", isinstance(count_cell, str) and count_cell.startswith("=COUNTIF(C4:"), count_cell)
     weekend_cell = ws.cell(row=4, column=head["Wkends"]).value
     expect("weekends are a formula", isinstance(weekend_cell, str) and weekend_cell.startswith("=") and "COUNTA" in weekend_cell, weekend_cell)
+    hours_letter = openpyxl.utils.get_column_letter(head["Hours"])
+    hours_rules = [r.formula[0] for cf in ws.conditional_formatting for r in cf.rules if str(cf.sqref) == f"{hours_letter}4"]
+    expect("hours are coloured against the contract bounds by conditional formats", any("<" in f for f in hours_rules), hours_rules)
     assigned = formulas["Cover"].cell(row=3, column=8).value
     expect("cover Assigned is a formula over the Roster sheet", isinstance(assigned, str) and "Roster!" in assigned, assigned)
     expect("the Lists sheet is hidden", formulas["Lists"].sheet_state == "hidden", formulas["Lists"].sheet_state)
