@@ -47,7 +47,9 @@ const CodeKind& kindOf(const std::string& reason) {
 
 }  // namespace
 
-std::string absenceCode(const model::Problem& p, const std::string& reason) { return distinctCode(p, kindOf(reason).code); }
+std::string absenceCode(const model::Problem& p, const std::string& reason) {
+  return distinctCode(p, kindOf(reason).code);
+}
 
 std::optional<std::string> absenceCodeMeaning(const model::Problem& p, const std::string& text) {
   for (const CodeKind& k : kKinds)

@@ -21,8 +21,9 @@ void writeBaselineSheet(Book& bk) {
   bold.bold = true;
   const std::string title = "Against " + d.source + ": " + report::baselineLine(d);
   check(worksheet_write_string(ws, 0, 0, title.c_str(), f.get(bold)), "baseline title");
-  const std::string penalty = "Penalty: hard " + report::pointsText(d.before.hard) + " -> " + report::pointsText(d.after.hard) + ", soft " +
-                              report::pointsText(d.before.soft) + " -> " + report::pointsText(d.after.soft);
+  const std::string penalty = "Penalty: hard " + report::pointsText(d.before.hard) + " -> " +
+                              report::pointsText(d.after.hard) + ", soft " + report::pointsText(d.before.soft) +
+                              " -> " + report::pointsText(d.after.soft);
   check(worksheet_write_string(ws, 1, 0, penalty.c_str(), nullptr), "baseline title");
 
   Style centred;
@@ -64,10 +65,11 @@ void writeBaselineSheet(Book& bk) {
   for (const auto& b : d.added) breach("new", b, "", report::amountWithUnit(b.kind, b.amount));
   for (const auto& b : d.gone) breach("gone", b, report::amountWithUnit(b.kind, b.amount), "");
   for (const auto& c : d.changed)
-    breach("changed", c.after, report::amountWithUnit(c.before.kind, c.before.amount), report::amountWithUnit(c.after.kind, c.after.amount));
+    breach("changed", c.after, report::amountWithUnit(c.before.kind, c.before.amount),
+           report::amountWithUnit(c.after.kind, c.after.amount));
   const lxw_row_t breachLast = row == breachHead + 1 ? breachHead + 1 : row - 1;
-  addTable(ws, f, "BaselineBreaches", {"Status", "Severity", "Rule", "Person", "Dates", "Before", "After", "Message"}, breachHead,
-           breachLast);
+  addTable(ws, f, "BaselineBreaches", {"Status", "Severity", "Rule", "Person", "Dates", "Before", "After", "Message"},
+           breachHead, breachLast);
 
   const double widths[] = {12, 18, 18, 10, 24, 11, 11, 80};
   for (lxw_col_t c = 0; c < 8; ++c) check(worksheet_set_column(ws, c, c, widths[c], nullptr), "columns");

@@ -39,7 +39,8 @@ std::string exactCriterion(const std::string& text, bool prefix) {
 ListsPlan planLists(const model::Problem& p) {
   ListsPlan plan;
   for (size_t s = 0; s < p.shifts.size(); ++s)
-    plan.shiftHoursCell.push_back(std::string(ListsPlan::kSheet) + "!" + cellRef(static_cast<lxw_row_t>(1 + s), 1, true, true));
+    plan.shiftHoursCell.push_back(std::string(ListsPlan::kSheet) + "!" +
+                                  cellRef(static_cast<lxw_row_t>(1 + s), 1, true, true));
   plan.absenceCodes = allAbsenceCodes(p);
   for (StaffIdx s = 0; s < p.staffCount(); ++s) {
     const model::Person& person = p.staff[static_cast<size_t>(s)];
@@ -80,7 +81,8 @@ std::string rowRange(const model::Problem& p, lxw_row_t row) {
 std::string RowFormulas::shiftCount(lxw_row_t row, ShiftIdx shift) const {
   const std::string range = rowRange(problem, row);
   const std::string& id = problem.shifts[static_cast<size_t>(shift)].id;
-  return "=COUNTIF(" + range + "," + exactCriterion(id) + ")+COUNTIF(" + range + "," + exactCriterion(id + "/", true) + ")";
+  return "=COUNTIF(" + range + "," + exactCriterion(id) + ")+COUNTIF(" + range + "," + exactCriterion(id + "/", true) +
+         ")";
 }
 
 std::string RowFormulas::hours(lxw_row_t row) const {
@@ -100,7 +102,8 @@ std::string RowFormulas::weekends(lxw_row_t row, StaffIdx staff) const {
   const auto& codes = lists.personCodes[static_cast<size_t>(staff)];
   std::vector<std::string> absenceCodes;
   for (const std::string& c : codes)
-    if (std::find(lists.absenceCodes.begin(), lists.absenceCodes.end(), c) != lists.absenceCodes.end()) absenceCodes.push_back(c);
+    if (std::find(lists.absenceCodes.begin(), lists.absenceCodes.end(), c) != lists.absenceCodes.end())
+      absenceCodes.push_back(c);
   std::string f;
   int blocks = 0;
   for (DayIdx d = 0; d < problem.days;) {
@@ -123,15 +126,16 @@ std::string RowFormulas::weekends(lxw_row_t row, StaffIdx staff) const {
 }
 
 std::string coverAssignedFormula(const model::Problem& p, const RosterLayout& l, DayIdx day, TaskIdx task) {
-  const lxw_row_t first = kFirstPersonRow, last = static_cast<lxw_row_t>(kFirstPersonRow + std::max(p.staffCount(), 1) - 1);
+  const lxw_row_t first = kFirstPersonRow,
+                  last = static_cast<lxw_row_t>(kFirstPersonRow + std::max(p.staffCount(), 1) - 1);
   const std::string sheet = std::string(kRosterSheet) + "!";
   const std::string cells = sheet + rangeRef(first, dayCol(day), last, dayCol(day), true);
   const std::string skills = sheet + rangeRef(first, l.skillCol, last, l.skillCol, true);
   const model::Task& t = p.tasks[static_cast<size_t>(task)];
   const std::string& shift = p.shifts[static_cast<size_t>(t.shift)].id;
   const std::string& skill = p.skills[static_cast<size_t>(t.skill)];
-  return "=COUNTIFS(" + cells + "," + exactCriterion(shift) + "," + skills + "," + exactCriterion(skill) + ")+COUNTIF(" + cells + "," +
-         exactCriterion(shift + "/" + skill) + ")";
+  return "=COUNTIFS(" + cells + "," + exactCriterion(shift) + "," + skills + "," + exactCriterion(skill) +
+         ")+COUNTIF(" + cells + "," + exactCriterion(shift + "/" + skill) + ")";
 }
 
 }  // namespace rotaweave::io::xlsx

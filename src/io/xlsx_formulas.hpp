@@ -25,7 +25,7 @@ std::string exactCriterion(const std::string& text, bool prefix = false);
 struct ListsPlan {
   static constexpr const char* kSheet = "Lists";
   /// Shift table: A shift id, B paid hours, C label; one row per shift from row 1 (0-based).
-  std::vector<std::string> shiftHoursCell;   ///< per shift: "Lists!$B$2"
+  std::vector<std::string> shiftHoursCell;  ///< per shift: "Lists!$B$2"
   /// Absence codes: E code, F meaning, from row 1.
   std::vector<std::string> absenceCodes;
   /// Per person, one column from H: row 0 the id, rows 1.. the codes the person may take.

@@ -22,8 +22,8 @@ lxw_format* conditionalLook(lxw_workbook* book, lxw_color_t fill, lxw_color_t fo
   return f;
 }
 
-void addFormat(lxw_worksheet* ws, const std::vector<std::pair<lxw_col_t, lxw_col_t>>& columns, lxw_row_t first, lxw_row_t last,
-               lxw_conditional_format& cf, const char* what) {
+void addFormat(lxw_worksheet* ws, const std::vector<std::pair<lxw_col_t, lxw_col_t>>& columns, lxw_row_t first,
+               lxw_row_t last, lxw_conditional_format& cf, const char* what) {
   if (columns.empty()) return;
   std::string multi;
   for (const auto& [from, to] : columns) multi += (multi.empty() ? "" : " ") + rangeRef(first, from, last, to);
@@ -37,8 +37,10 @@ std::vector<std::pair<lxw_col_t, lxw_col_t>> dayRuns(const model::Problem& p, Ke
   std::vector<std::pair<lxw_col_t, lxw_col_t>> runs;
   for (DayIdx d = 0; d < p.days; ++d) {
     if (!keep(static_cast<size_t>(d))) continue;
-    if (!runs.empty() && runs.back().second + 1 == dayCol(d)) runs.back().second = dayCol(d);
-    else runs.emplace_back(dayCol(d), dayCol(d));
+    if (!runs.empty() && runs.back().second + 1 == dayCol(d))
+      runs.back().second = dayCol(d);
+    else
+      runs.emplace_back(dayCol(d), dayCol(d));
   }
   return runs;
 }
@@ -63,7 +65,8 @@ void addRosterValidation(Book& bk, lxw_worksheet* ws) {
     v.error_type = LXW_VALIDATION_ERROR_TYPE_STOP;
     v.error_title = title.data();
     v.error_message = message.data();
-    check(worksheet_data_validation_range(ws, personRow(s), kFirstDayCol, personRow(s), dayCol(p.days - 1), &v), "roster drop-down list");
+    check(worksheet_data_validation_range(ws, personRow(s), kFirstDayCol, personRow(s), dayCol(p.days - 1), &v),
+          "roster drop-down list");
   }
 }
 
@@ -77,8 +80,8 @@ void addRosterConditionalFormats(Book& bk, lxw_worksheet* ws, const RosterLayout
   // LibreOffice (which applies the first match) agree.
   for (size_t s = 0; s < p.shifts.size(); ++s) {
     const std::string& id = p.shifts[s].id;
-    std::string formula = "=OR(" + topLeft + "=" + textLiteral(id) + ",LEFT(" + topLeft + "," + std::to_string(id.size() + 1) +
-                          ")=" + textLiteral(id + "/") + ")";
+    std::string formula = "=OR(" + topLeft + "=" + textLiteral(id) + ",LEFT(" + topLeft + "," +
+                          std::to_string(id.size() + 1) + ")=" + textLiteral(id + "/") + ")";
     const lxw_color_t fill = shiftColour(p, static_cast<ShiftIdx>(s));
     lxw_conditional_format cf{};
     cf.type = LXW_CONDITIONAL_TYPE_FORMULA;
@@ -87,7 +90,8 @@ void addRosterConditionalFormats(Book& bk, lxw_worksheet* ws, const RosterLayout
     addFormat(ws, all, first, last, cf, "roster shift colours");
   }
   std::string absent;
-  for (const std::string& code : bk.lists.absenceCodes) absent += (absent.empty() ? "" : ",") + topLeft + "=" + textLiteral(code);
+  for (const std::string& code : bk.lists.absenceCodes)
+    absent += (absent.empty() ? "" : ",") + topLeft + "=" + textLiteral(code);
   std::string formula = "=OR(" + absent + ")";
   lxw_conditional_format cf{};
   cf.type = LXW_CONDITIONAL_TYPE_FORMULA;

@@ -76,8 +76,9 @@ BaselineDiff compareWithBaseline(const model::Problem& p, const model::Roster& b
 }
 
 std::string baselineLine(const BaselineDiff& d) {
-  std::string line = plural(static_cast<int>(d.cells.size()), "cell", "cells") + " changed for " + plural(d.people, "person", "people") +
-                     "; " + plural(static_cast<int>(d.added.size()), "new breach", "new breaches");
+  std::string line = plural(static_cast<int>(d.cells.size()), "cell", "cells") + " changed for " +
+                     plural(d.people, "person", "people") + "; " +
+                     plural(static_cast<int>(d.added.size()), "new breach", "new breaches");
   if (!d.added.empty()) line += " (" + std::to_string(d.addedHard()) + " hard)";
   line += ", " + std::to_string(d.gone.size()) + " gone";
   if (!d.gone.empty()) line += " (" + std::to_string(d.goneHard()) + " hard)";
@@ -89,13 +90,13 @@ std::string renderBaselineText(const BaselineDiff& d, const model::Problem& p) {
   std::ostringstream out;
   out << "BASELINE (against " << d.source << ")\n"
       << "  " << baselineLine(d) << "\n"
-      << "  Penalty: hard " << pointsText(d.before.hard) << " -> " << pointsText(d.after.hard) << ", soft " << pointsText(d.before.soft)
-      << " -> " << pointsText(d.after.soft) << "\n";
+      << "  Penalty: hard " << pointsText(d.before.hard) << " -> " << pointsText(d.after.hard) << ", soft "
+      << pointsText(d.before.soft) << " -> " << pointsText(d.after.soft) << "\n";
   out << "  Changed cells:\n";
   if (d.cells.empty()) out << "    (none)\n";
   for (const BaselineCell& c : d.cells)
-    out << "    " << p.staff[static_cast<size_t>(c.staff)].id << "  " << p.dateText(c.day) << "  " << p.cellText(c.before, c.staff) << " -> "
-        << p.cellText(c.after, c.staff) << "\n";
+    out << "    " << p.staff[static_cast<size_t>(c.staff)].id << "  " << p.dateText(c.day) << "  "
+        << p.cellText(c.before, c.staff) << " -> " << p.cellText(c.after, c.staff) << "\n";
   out << "  New breaches:\n";
   if (d.added.empty()) out << "    (none)\n";
   for (const auto& b : d.added) out << "    " << breachLine(b, p) << "\n";

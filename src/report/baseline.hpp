@@ -27,13 +27,13 @@ struct ChangedBreach {
 };
 
 struct BaselineDiff {
-  std::string source;                      ///< the baseline file, as given
-  std::vector<BaselineCell> cells;         ///< staff order, then date order
-  int people = 0;                          ///< people with at least one changed cell
-  std::vector<rules::Breach> added;        ///< in the checked roster only ("new")
-  std::vector<rules::Breach> gone;         ///< in the baseline only
-  std::vector<ChangedBreach> changed;      ///< in both, by a different amount
-  rules::Tally before, after;              ///< penalty totals of the baseline and the checked roster
+  std::string source;                  ///< the baseline file, as given
+  std::vector<BaselineCell> cells;     ///< staff order, then date order
+  int people = 0;                      ///< people with at least one changed cell
+  std::vector<rules::Breach> added;    ///< in the checked roster only ("new")
+  std::vector<rules::Breach> gone;     ///< in the baseline only
+  std::vector<ChangedBreach> changed;  ///< in both, by a different amount
+  rules::Tally before, after;          ///< penalty totals of the baseline and the checked roster
   int addedHard() const;
   int goneHard() const;
 };

@@ -20,7 +20,8 @@ model::Problem smallWard() {
 }
 
 report::BaselineDiff diffOf(const model::Problem& p, const model::Roster& before, const model::Roster& after) {
-  return report::compareWithBaseline(p, before, test::breaches(p, before), after, test::breaches(p, after), "before.csv");
+  return report::compareWithBaseline(p, before, test::breaches(p, before), after, test::breaches(p, after),
+                                     "before.csv");
 }
 
 size_t countKind(const std::vector<rules::Breach>& list, const std::string& kind) {

@@ -28,7 +28,8 @@ TEST_SUITE("io") {
   TEST_CASE("workbook colours: default shift colours keep clear of the absence fill") {
     const model::Problem p = test::loadYaml(test::header(3) + "staff:\n  - {id: a, skills: [rn]}\n");
     for (size_t s = 0; s < p.shifts.size(); ++s)
-      CHECK(io::xlsx::colourDistance(io::xlsx::shiftColour(p, static_cast<ShiftIdx>(s)), io::xlsx::kAbsenceFill) >= io::xlsx::kClashDistance);
+      CHECK(io::xlsx::colourDistance(io::xlsx::shiftColour(p, static_cast<ShiftIdx>(s)), io::xlsx::kAbsenceFill) >=
+            io::xlsx::kClashDistance);
     CHECK(io::xlsx::colourClashes(p).empty());
     CHECK(io::xlsx::colourDistance(0x000000, 0xFFFFFF) == doctest::Approx(441.67).epsilon(0.001));
   }
