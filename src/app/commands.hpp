@@ -19,7 +19,10 @@ struct Outcome {
   int exitCode = 0;  ///< 0: no hard breach; 1: hard breaches remain.
 };
 
-Outcome check(const std::string& scenario, const std::string& roster, const std::filesystem::path& out);
+/// `baseline` (may be empty): the roster `roster` was edited from, read the same way; the
+/// report then says which cells changed and which breaches are new or gone.
+Outcome check(const std::string& scenario, const std::string& roster, const std::filesystem::path& out,
+              const std::string& baseline = "");
 
 struct SolveRequest {
   std::string scenario;

@@ -27,7 +27,8 @@ double outputReserve(const model::Problem& problem, double timeLimit) {
   return std::min(kFixed + kPerCell * cells, timeLimit / 5);
 }
 
-Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roster, report::RunInfo run, io::OutputFolder& out) {
+Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roster, report::RunInfo run,
+                       io::OutputFolder& out, const BaselineInput* baseline) {
   const model::Problem& problem = ruleSet.problem();
   eval::Evaluator evaluator(ruleSet);
   Outcome outcome;
@@ -36,6 +37,9 @@ Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roste
   analysis::compareWithRoster(capacity, problem, roster, outcome.report.breaches);
   outcome.report.capacity = std::move(capacity);
   if (problem.published) outcome.report.changes = report::computeChanges(problem, roster);
+  if (baseline)
+    outcome.report.baseline = report::compareWithBaseline(problem, baseline->roster, evaluator.explain(baseline->roster), roster,
+                                                          outcome.report.breaches, baseline->source);
   const io::OutputBundle bundle{problem, roster, outcome.report};
   out.writeSet([&bundle](const std::filesystem::path& dir) { io::writeStandardOutputs(dir, bundle); });
   outcome.exitCode = outcome.report.hardCount > 0 ? 1 : 0;

@@ -1,6 +1,7 @@
 /// @brief The last step shared by every command: explain the roster, build the report, write it.
 #pragma once
 #include <filesystem>
+#include <string>
 #include <vector>
 
 #include "app/commands.hpp"
@@ -19,8 +20,16 @@ void refuseToOverwrite(const std::filesystem::path& input, const std::filesystem
 Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::Roster>& seeds, const SolveRequest& request,
                        const char* command, io::OutputFolder& out);
 
-/// Explains and reports `roster`, then writes the whole output set into `out` as one.
-Outcome reportAndWrite(const rules::RuleSet& rules, const model::Roster& roster, report::RunInfo run, io::OutputFolder& out);
+/// The roster an edited one came from (check --baseline) and its file name for the report.
+struct BaselineInput {
+  const model::Roster& roster;
+  std::string source;
+};
+
+/// Explains `roster`, builds the report (with the comparison against `baseline` when given)
+/// and writes the whole output set into `out` as one.
+Outcome reportAndWrite(const rules::RuleSet& rules, const model::Roster& roster, report::RunInfo run,
+                       io::OutputFolder& out, const BaselineInput* baseline = nullptr);
 
 /// Seconds the outputs of a run on `problem` are allowed for: taken from the time limit, so
 /// that the whole run, loading to the last file, keeps it. Grows with the roster's size,

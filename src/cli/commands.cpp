@@ -20,7 +20,7 @@ int run(const Parsed& parsed) {
     std::cout << help->text;
     return 0;
   }
-  if (const auto* c = std::get_if<CheckArgs>(&parsed)) return finish(app::check(c->scenario, c->roster, c->out), c->out, false);
+  if (const auto* c = std::get_if<CheckArgs>(&parsed)) return finish(app::check(c->scenario, c->roster, c->out, c->baseline), c->out, false);
   if (const auto* s = std::get_if<app::SolveRequest>(&parsed)) return finish(app::solve(*s), s->out.string(), s->options.quiet);
   const auto& r = std::get<app::ReplanRequest>(parsed);
   return finish(app::replan(r), r.solve.out.string(), r.solve.options.quiet);

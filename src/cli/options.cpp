@@ -14,7 +14,7 @@ const char* kUsage =
     "usage:\n"
     "  rotaweave solve  SCENARIO.yaml [--out DIR] [--time-limit SEC] [--generations N] [--seed N]\n"
     "                                 [--threads N] [--islands N] [--quiet]\n"
-    "  rotaweave check  SCENARIO.yaml --roster ROSTER.csv|ROSTER.xlsx [--out DIR]\n"
+    "  rotaweave check  SCENARIO.yaml --roster ROSTER.csv|ROSTER.xlsx [--baseline ORIGINAL.csv|.xlsx] [--out DIR]\n"
     "  rotaweave replan SCENARIO.yaml --roster PUBLISHED.csv|PUBLISHED.xlsx --from DATE\n"
     "                                 [--absence STAFF:DATE[..DATE][:REASON]]... [--out DIR] [solve options]\n"
     "  rotaweave --help | --version\n";
@@ -71,6 +71,7 @@ std::string helpText() {
   po::options_description all;
   all.add(common()).add(solverOptions());
   all.add_options()("roster", "check, replan: the roster to check or the published roster (CSV or xlsx workbook)")(
+      "baseline", "check: the roster --roster was edited from; the report lists new and gone breaches and changed cells")(
       "from", "replan: first date to re-plan (YYYY-MM-DD)")("absence", "replan: STAFF:DATE, STAFF:DATE..DATE or either with :REASON, repeatable");
   out << all;
   out << "\nExit status: 0 done, no hard violation; 1 hard violations remain; 2 bad input or usage; 3 internal error.\n";
@@ -88,7 +89,14 @@ std::string optionsMarkdown() {
   for (const auto& p : search::parameterTable())
     out << "| `--" << p.name << "` | " << p.help << " | " << p.defaultValue << " | " << p.min << " to " << p.max << " |\n";
   out << "| `--selection` | parent selection: tournament, rank, sus (stochastic universal sampling) or roulette | tournament | |\n"
-      << "| `--quiet` | no progress output on stderr | off | |\n";
+      << "| `--quiet` | no progress output on stderr | off | |\n"
+      << "\n# Check options\n\n"
+      << "| option | meaning |\n| --- | --- |\n"
+      << "| `--roster FILE` | the roster to check (required) |\n"
+      << "| `--baseline FILE` | the roster `--roster` was edited from, read the same way; report.txt (BASELINE), report.json "
+         "(`baseline`) and the workbook's Baseline sheet list the changed cells and the breaches that are new, gone or changed in "
+         "amount |\n"
+      << "| `--out DIR` | output folder (default `out`) |\n";
   return out.str();
 }
 
@@ -103,9 +111,11 @@ Parsed parseCommandLine(int argc, char** argv) {
 
   if (command == "check") {
     auto desc = common();
-    desc.add_options()("roster", po::value<std::string>()->required(), "roster to check (CSV or xlsx workbook)");
+    desc.add_options()("roster", po::value<std::string>()->required(), "roster to check (CSV or xlsx workbook)")(
+        "baseline", po::value<std::string>(), "the roster this one was edited from: report new, gone and changed breaches and changed cells");
     const auto vm = parse(args, desc, "check");
-    return CheckArgs{vm["scenario"].as<std::string>(), vm["roster"].as<std::string>(), vm["out"].as<std::string>()};
+    return CheckArgs{vm["scenario"].as<std::string>(), vm["roster"].as<std::string>(), vm["out"].as<std::string>(),
+                     vm.count("baseline") ? vm["baseline"].as<std::string>() : std::string()};
   }
   if (command == "solve" || command == "replan") {
     auto desc = common();

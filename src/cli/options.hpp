@@ -10,6 +10,7 @@ namespace rotaweave::cli {
 
 struct CheckArgs {
   std::string scenario, roster, out = "out";
+  std::string baseline;  ///< --baseline: the roster `roster` was edited from (may be empty)
 };
 struct HelpArgs {
   std::string text;

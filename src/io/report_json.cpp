@@ -37,6 +37,44 @@ std::string gapText(std::optional<double> gap) {
   return text;
 }
 
+/// One breach as a violation record (the contract fields).
+std::string breachJson(const rules::Breach& b, const model::Problem& p) {
+  std::ostringstream out;
+  out << "{\"rule\": " << jsonString(b.ruleId) << ", \"kind\": " << jsonString(b.kind) << ", \"severity\": \"" << (b.hard ? "hard" : "soft")
+      << "\", \"staff\": " << (b.staff >= 0 ? jsonString(p.staff[static_cast<size_t>(b.staff)].id) : std::string("null")) << ", \"dates\": [";
+  for (size_t k = 0; k < b.days.size(); ++k) out << (k ? ", " : "") << "\"" << p.dateText(b.days[k]) << "\"";
+  out << "], \"amount\": " << report::amountText(b.amount) << ", \"penalty\": " << report::pointsText(b.penalty)
+      << ", \"message\": " << jsonString(b.message) << "}";
+  return out.str();
+}
+
+std::string breachListJson(const std::vector<rules::Breach>& list, const model::Problem& p) {
+  std::string out = "[";
+  for (size_t i = 0; i < list.size(); ++i) out += (i ? ",\n      " : "\n      ") + breachJson(list[i], p);
+  return out + (list.empty() ? "]" : "\n    ]");
+}
+
+std::string baselineJson(const report::BaselineDiff& d, const model::Problem& p) {
+  using report::pointsText;
+  std::ostringstream out;
+  out << "{\"file\": " << jsonString(d.source) << ", \"before\": {\"hard\": " << pointsText(d.before.hard) << ", \"soft\": "
+      << pointsText(d.before.soft) << "}, \"after\": {\"hard\": " << pointsText(d.after.hard) << ", \"soft\": " << pointsText(d.after.soft)
+      << "}, \"people\": " << d.people << ",\n    \"cells\": [";
+  for (size_t i = 0; i < d.cells.size(); ++i) {
+    const auto& c = d.cells[i];
+    out << (i ? ",\n      " : "\n      ") << "{\"staff\": " << jsonString(p.staff[static_cast<size_t>(c.staff)].id) << ", \"date\": \""
+        << p.dateText(c.day) << "\", \"before\": " << jsonString(p.cellText(c.before, c.staff))
+        << ", \"after\": " << jsonString(p.cellText(c.after, c.staff)) << "}";
+  }
+  out << (d.cells.empty() ? "]" : "\n    ]") << ",\n    \"new\": " << breachListJson(d.added, p) << ",\n    \"gone\": " << breachListJson(d.gone, p)
+      << ",\n    \"changed\": [";
+  for (size_t i = 0; i < d.changed.size(); ++i)
+    out << (i ? ",\n      " : "\n      ") << "{\"before\": " << breachJson(d.changed[i].before, p) << ",\n       \"after\": " << breachJson(d.changed[i].after, p)
+        << "}";
+  out << (d.changed.empty() ? "]}" : "\n    ]}");
+  return out.str();
+}
+
 }  // namespace
 
 std::string reportJson(const report::Report& r, const model::Problem& p) {
@@ -64,12 +102,7 @@ std::string reportJson(const report::Report& r, const model::Problem& p) {
   out << "  \"violations\": [";
   for (size_t i = 0; i < r.breaches.size(); ++i) {
     const auto& b = r.breaches[i];
-    out << (i ? ",\n    " : "\n    ") << "{\"rule\": " << jsonString(b.ruleId) << ", \"kind\": " << jsonString(b.kind)
-        << ", \"severity\": \"" << (b.hard ? "hard" : "soft") << "\", \"staff\": "
-        << (b.staff >= 0 ? jsonString(p.staff[static_cast<size_t>(b.staff)].id) : std::string("null")) << ", \"dates\": [";
-    for (size_t k = 0; k < b.days.size(); ++k) out << (k ? ", " : "") << "\"" << p.dateText(b.days[k]) << "\"";
-    out << "], \"amount\": " << amountText(b.amount) << ", \"penalty\": " << pointsText(b.penalty)
-        << ", \"message\": " << jsonString(b.message) << "}";
+    out << (i ? ",\n    " : "\n    ") << breachJson(b, p);
   }
   out << (r.breaches.empty() ? "],\n" : "\n  ],\n");
   if (r.changes) {
@@ -83,6 +116,7 @@ std::string reportJson(const report::Report& r, const model::Problem& p) {
     }
     out << (r.changes->cells.empty() ? "]},\n" : "\n  ]},\n");
   }
+  if (r.baseline) out << "  \"baseline\": " << baselineJson(*r.baseline, p) << ",\n";
   if (r.capacity) out << "  \"capacity\": " << analysis::renderCapacityJson(*r.capacity, p) << ",\n";
   out << "  \"caution\": " << jsonString(report::cautionText()) << "\n}\n";
   return out.str();

@@ -6,6 +6,7 @@
 #include <cctype>
 #include <cstdio>
 
+#include "io/absence_codes.hpp"
 #include "io/csv.hpp"
 #include "io/input_error.hpp"
 #include "io/input_limits.hpp"
@@ -53,6 +54,7 @@ std::optional<TaskIdx> parseRosterCell(const std::string& cell, StaffIdx s, cons
   const std::string shiftId = trimCell(cell.substr(0, slash));
   const ShiftIdx shift = p.findShift(shiftId);
   if (shift == kNoShift) {
+    if (absenceCodeMeaning(p, cell)) return kOff;  // the workbook shows absence days as LV, SK, ...
     std::vector<std::string> shiftIds;
     for (const auto& sh : p.shifts) shiftIds.push_back(sh.id);
     error = "unknown shift '" + shiftId + "'" + didYouMean(shiftId, shiftIds) + "; use a shift id, SHIFT/skill, or leave the cell empty for off";

@@ -1,5 +1,6 @@
 /// @brief The Cover sheet: needed and assigned people per date, shift and skill, with a chart
-/// of the daily sums.
+/// of the daily sums. Assigned counts are formulas over the Roster sheet's date columns (and the
+/// gaps and daily sums formulas over those), with our values cached.
 #include <algorithm>
 #include <string>
 #include <vector>
@@ -63,10 +64,12 @@ lxw_row_t writeCell(Book& bk, lxw_worksheet* ws, lxw_row_t row, DayIdx d, TaskId
   check(worksheet_write_number(ws, row, kTarget, c.target, f.get(base)), "cover cell");
   if (c.max >= 0) check(worksheet_write_number(ws, row, kMax, c.max, f.get(base)), "cover cell");
   else check(worksheet_write_blank(ws, row, kMax, f.get(base)), "cover cell");
-  check(worksheet_write_number(ws, row, kAssigned, assigned, f.get(base)), "cover cell");
+  const std::string counted = coverAssignedFormula(p, rosterLayout(p), d, t);
+  check(worksheet_write_formula_num(ws, row, kAssigned, counted.c_str(), f.get(base), assigned), "cover cell");
+  const std::string assignedCell = cellRef(row, kAssigned);
 
   // Shortfalls: zeros are hidden, breaches shaded (red for a hard minimum, amber otherwise).
-  auto gap = [&](lxw_col_t col, int amount, bool hard) {
+  auto gap = [&](lxw_col_t col, int amount, bool hard, const std::string& formula) {
     Style s = base;
     s.numFormat = "0;-0;;@";
     if (amount > 0) {
@@ -74,11 +77,12 @@ lxw_row_t writeCell(Book& bk, lxw_worksheet* ws, lxw_row_t row, DayIdx d, TaskId
       s.font = hard ? kHardColour : 0x7A4B00;
       s.bold = true;
     }
-    check(worksheet_write_number(ws, row, col, amount, f.get(s)), "cover cell");
+    check(worksheet_write_formula_num(ws, row, col, formula.c_str(), f.get(s), amount), "cover cell");
   };
-  gap(kShortMin, std::max(0, c.min - assigned), c.minHard);
-  gap(kShortTarget, std::max(0, c.target - assigned), false);
-  gap(kOverMax, c.max >= 0 ? std::max(0, assigned - c.max) : 0, false);
+  gap(kShortMin, std::max(0, c.min - assigned), c.minHard, "=MAX(0," + cellRef(row, kMin) + "-" + assignedCell + ")");
+  gap(kShortTarget, std::max(0, c.target - assigned), false, "=MAX(0," + cellRef(row, kTarget) + "-" + assignedCell + ")");
+  gap(kOverMax, c.max >= 0 ? std::max(0, assigned - c.max) : 0, false,
+      c.max >= 0 ? "=MAX(0," + assignedCell + "-" + cellRef(row, kMax) + ")" : "=0");
   return row + 1;
 }
 
@@ -128,6 +132,7 @@ void writeCoverSheet(Book& bk) {
   sum.center = true;
   Style sumDate = sum;
   sumDate.numFormat = "yyyy-mm-dd";
+  std::vector<DaySums> sums;
   for (DayIdx d = 0; d < p.days; ++d) {
     const std::vector<int> counts = assignedCounts(p, bk.data.roster, d);
     DaySums day;
@@ -145,9 +150,17 @@ void writeCoverSheet(Book& bk) {
     check(worksheet_write_datetime(ws, sumRow, kSumDate, &dt, bk.formats.get(sumDate)), "cover sums");
     check(worksheet_write_number(ws, sumRow, kSumMin, day.min, bk.formats.get(sum)), "cover sums");
     check(worksheet_write_number(ws, sumRow, kSumTarget, day.target, bk.formats.get(sum)), "cover sums");
-    check(worksheet_write_number(ws, sumRow, kSumAssigned, day.assigned, bk.formats.get(sum)), "cover sums");
+    sums.push_back(day);
   }
   const lxw_row_t lastRow = row > kFirstRow ? row - 1 : kFirstRow;
+  // The daily assigned sum adds up the table's Assigned formulas of its date.
+  const std::string dates = rangeRef(kFirstRow, kDate, lastRow, kDate, true), assignedColumn = rangeRef(kFirstRow, kAssigned, lastRow, kAssigned, true);
+  for (DayIdx d = 0; d < p.days; ++d) {
+    const lxw_row_t sumRow = kFirstRow + static_cast<lxw_row_t>(d);
+    const std::string formula = "=SUMIF(" + dates + "," + cellRef(sumRow, kSumDate) + "," + assignedColumn + ")";
+    check(worksheet_write_formula_num(ws, sumRow, kSumAssigned, formula.c_str(), bk.formats.get(sum), sums[static_cast<size_t>(d)].assigned),
+          "cover sums");
+  }
   check(worksheet_autofilter(ws, kHeaderRow, kDate, lastRow, kOverMax), "cover filter");
   writeChart(bk, ws, kFirstRow + static_cast<lxw_row_t>(p.days) - 1);
 

@@ -1,18 +1,17 @@
-/// @brief The Roster sheet: people by dates, shift colours, breach marks with comments,
-/// per-person totals beside the contract bounds, a legend and the print setup.
+/// @brief The Roster sheet: people by dates, shift colours, absence codes, breach marks with
+/// comments, per-person totals (formulas over the row) beside the contract bounds and a legend.
+/// Drop-down lists, conditional colours and the print setup are in xlsx_roster_live.cpp.
 #include <algorithm>
 #include <map>
 #include <string>
 #include <vector>
 
+#include "io/absence_codes.hpp"
 #include "io/xlsx_sheets.hpp"
 #include "report/changes.hpp"
 
 namespace rotaweave::io::xlsx {
 namespace {
-
-constexpr lxw_row_t kTitleRow = 0, kWeekdayRow = 1, kDateRow = 2, kFirstPersonRow = 3;
-constexpr lxw_col_t kNameCol = 0, kIdCol = 1, kFirstDayCol = 2;
 
 /// The messages attached to one cell and whether any of them is hard.
 struct Marks {
@@ -22,35 +21,15 @@ struct Marks {
 };
 using MarkMap = std::map<std::pair<lxw_row_t, lxw_col_t>, Marks>;
 
-struct Layout {
-  lxw_col_t totalsCol;  ///< first totals column (Hours), after one spacer column
-  lxw_col_t minCol() const { return totalsCol + 1; }
-  lxw_col_t maxCol() const { return totalsCol + 2; }
-  lxw_col_t shiftCol(ShiftIdx s) const { return static_cast<lxw_col_t>(totalsCol + 3 + s); }
-  lxw_col_t shiftsCol;
-  lxw_col_t weekendsCol;
-};
-
-Layout layoutFor(const model::Problem& p) {
-  Layout l{};
-  l.totalsCol = static_cast<lxw_col_t>(kFirstDayCol + p.days + 1);
-  l.shiftsCol = static_cast<lxw_col_t>(l.totalsCol + 3 + static_cast<int>(p.shifts.size()));
-  l.weekendsCol = l.shiftsCol + 1;
-  return l;
-}
-
-lxw_row_t personRow(StaffIdx s) { return static_cast<lxw_row_t>(kFirstPersonRow + s); }
-lxw_col_t dayCol(DayIdx d) { return static_cast<lxw_col_t>(kFirstDayCol + d); }
-
 /// Where a breach that names no single day is shown: the total it is about.
-lxw_col_t summaryColumnFor(const std::string& kind, const Layout& l) {
+lxw_col_t summaryColumnFor(const std::string& kind, const RosterLayout& l) {
   if (kind.find("hours") != std::string::npos) return l.totalsCol;
   if (kind.find("count") != std::string::npos) return l.shiftsCol;
   if (kind.find("weekend") != std::string::npos) return l.weekendsCol;
   return kNameCol;
 }
 
-MarkMap collectMarks(const OutputBundle& b, const Layout& l) {
+MarkMap collectMarks(const OutputBundle& b, const RosterLayout& l) {
   MarkMap marks;
   const model::Problem& p = b.problem;
   for (const rules::Breach& br : b.report.breaches) {
@@ -72,6 +51,23 @@ MarkMap collectMarks(const OutputBundle& b, const Layout& l) {
       (br.hard ? m.hard : m.soft) = true;
     }
   }
+  // Absence cells: the reason and the dates of the whole absence, as a comment.
+  for (StaffIdx s = 0; s < p.staffCount(); ++s)
+    for (DayIdx d = 0; d < p.days;) {
+      const size_t c = p.cell(s, d);
+      if (!p.absent[c]) {
+        ++d;
+        continue;
+      }
+      DayIdx last = d;
+      while (last + 1 < p.days && p.absent[p.cell(s, last + 1)] && p.absenceReason[p.cell(s, last + 1)] == p.absenceReason[c]) ++last;
+      const std::string& reason = p.absenceReason[c];
+      const std::string code = absenceCode(p, reason);
+      std::string line = "Absent (" + code + ", " + *absenceCodeMeaning(p, code) + "): " + (reason.empty() ? "no reason given" : reason) +
+                         ", " + p.dateText(d) + (last > d ? " to " + p.dateText(last) : "");
+      for (DayIdx k = d; k <= last; ++k) marks[{personRow(s), dayCol(k)}].messages.insert(marks[{personRow(s), dayCol(k)}].messages.begin(), line);
+      d = last + 1;
+    }
   return marks;
 }
 
@@ -99,7 +95,7 @@ void writeComment(lxw_worksheet* ws, lxw_row_t row, lxw_col_t col, const Marks& 
   check(worksheet_write_comment_opt(ws, row, col, text.c_str(), &opt), "roster comment");
 }
 
-void writeHeader(Book& bk, lxw_worksheet* ws, const Layout& l, const MarkMap& marks) {
+void writeHeader(Book& bk, lxw_worksheet* ws, const RosterLayout& l, const MarkMap& marks) {
   const model::Problem& p = bk.data.problem;
   Formats& f = bk.formats;
   Style title;
@@ -138,7 +134,7 @@ void writeHeader(Book& bk, lxw_worksheet* ws, const Layout& l, const MarkMap& ma
     check(worksheet_write_datetime(ws, kDateRow, dayCol(d), &dt, f.get(date)), "roster header");
     if (m) writeComment(ws, kDateRow, dayCol(d), *m);
   }
-  check(worksheet_merge_range(ws, kWeekdayRow, l.totalsCol, kWeekdayRow, l.weekendsCol, "Totals and contract bounds", f.get(head)),
+  check(worksheet_merge_range(ws, kWeekdayRow, l.totalsCol, kWeekdayRow, l.skillCol, "Totals (formulas) and contract bounds", f.get(head)),
         "roster header");
   auto totalHead = [&](lxw_col_t col, const std::string& text) {
     check(worksheet_write_string(ws, kDateRow, col, text.c_str(), f.get(head)), "roster header");
@@ -149,9 +145,10 @@ void writeHeader(Book& bk, lxw_worksheet* ws, const Layout& l, const MarkMap& ma
   for (size_t s = 0; s < p.shifts.size(); ++s) totalHead(l.shiftCol(static_cast<ShiftIdx>(s)), p.shifts[s].id);
   totalHead(l.shiftsCol, "Shifts");
   totalHead(l.weekendsCol, "Wkends");
+  totalHead(l.skillCol, "Main skill");
 }
 
-void writePerson(Book& bk, lxw_worksheet* ws, const Layout& l, const MarkMap& marks, StaffIdx s) {
+void writePerson(Book& bk, lxw_worksheet* ws, const RosterLayout& l, const MarkMap& marks, StaffIdx s) {
   const model::Problem& p = bk.data.problem;
   const model::Roster& r = bk.data.roster;
   const report::PersonSummary& sum = bk.data.report.byPerson[static_cast<size_t>(s)];
@@ -186,7 +183,8 @@ void writePerson(Book& bk, lxw_worksheet* ws, const Layout& l, const MarkMap& ma
       cell.font = textColourOn(cell.fill);
     } else if (p.absent[p.cell(s, d)]) {
       cell.fill = kAbsenceFill;
-      cell.hatched = true;
+      cell.font = 0xFFFFFF;
+      cell.bold = true;
     } else if (p.holiday[di]) {
       cell.fill = kHolidayFill;
     } else if (p.weekend[di]) {
@@ -197,7 +195,8 @@ void writePerson(Book& bk, lxw_worksheet* ws, const Layout& l, const MarkMap& ma
       cell.borderColour = kChangedColour;
     }
     lxw_format* fmt = f.get(marked(cell, markAt(dayCol(d))));
-    const std::string text = p.taskText(t, s);
+    const size_t ci = p.cell(s, d);
+    const std::string text = t == kOff && p.absent[ci] ? absenceCode(p, p.absenceReason[ci]) : p.taskText(t, s);
     if (text.empty()) check(worksheet_write_blank(ws, row, dayCol(d), fmt), "roster cell");
     else check(worksheet_write_string(ws, row, dayCol(d), text.c_str(), fmt), "roster cell");
     comment(dayCol(d));
@@ -214,7 +213,13 @@ void writePerson(Book& bk, lxw_worksheet* ws, const Layout& l, const MarkMap& ma
     hours.font = contract->hard ? kHardColour : kSoftColour;
     hours.bold = true;
   }
-  check(worksheet_write_number(ws, row, l.totalsCol, paid / 60.0, f.get(marked(hours, markAt(l.totalsCol)))), "roster hours");
+  // Totals are formulas over the row with our values cached, so they follow edits made in a
+  // spreadsheet program and still read right in readers that do not recalculate.
+  const RowFormulas formulas{p, l, bk.lists};
+  double cachedHours = 0;  // summed as the formula sums, shift by shift
+  for (size_t k = 0; k < p.shifts.size(); ++k) cachedHours += sum.shiftsByType[k] * (p.shifts[k].paidMinutes() / 60.0);
+  check(worksheet_write_formula_num(ws, row, l.totalsCol, formulas.hours(row).c_str(), f.get(marked(hours, markAt(l.totalsCol))),
+                                    cachedHours), "roster hours");
   comment(l.totalsCol);
   Style bound;
   bound.numFormat = "0.0";
@@ -228,15 +233,28 @@ void writePerson(Book& bk, lxw_worksheet* ws, const Layout& l, const MarkMap& ma
   Style count;
   count.center = true;
   for (size_t k = 0; k < p.shifts.size(); ++k)
-    check(worksheet_write_number(ws, row, l.shiftCol(static_cast<ShiftIdx>(k)), sum.shiftsByType[k], f.get(count)), "roster count");
-  check(worksheet_write_number(ws, row, l.shiftsCol, sum.shiftsWorked, f.get(marked(count, markAt(l.shiftsCol)))), "roster count");
+    check(worksheet_write_formula_num(ws, row, l.shiftCol(static_cast<ShiftIdx>(k)), formulas.shiftCount(row, static_cast<ShiftIdx>(k)).c_str(),
+                                      f.get(count), sum.shiftsByType[k]), "roster count");
+  check(worksheet_write_formula_num(ws, row, l.shiftsCol, formulas.shifts(row).c_str(), f.get(marked(count, markAt(l.shiftsCol))),
+                                    sum.shiftsWorked), "roster count");
   comment(l.shiftsCol);
-  check(worksheet_write_number(ws, row, l.weekendsCol, sum.weekendsWorked, f.get(marked(count, markAt(l.weekendsCol)))),
-        "roster count");
+  const std::string weekends = formulas.weekends(row, s);
+  lxw_format* weekendFormat = f.get(marked(count, markAt(l.weekendsCol)));
+  if (weekends.empty() || weekends.size() > kMaxFormulaLength)
+    check(worksheet_write_number(ws, row, l.weekendsCol, sum.weekendsWorked, weekendFormat), "roster count");
+  else
+    check(worksheet_write_formula_num(ws, row, l.weekendsCol, weekends.c_str(), weekendFormat, sum.weekendsWorked), "roster count");
   comment(l.weekendsCol);
+  Style skill;
+  skill.center = true;
+  skill.font = 0x595959;
+  if (!person.skills.empty())
+    check(worksheet_write_string(ws, row, l.skillCol, p.skills[static_cast<size_t>(person.skills.front())].c_str(), f.get(skill)),
+          "roster skill");
 }
 
-void writeLegend(Book& bk, lxw_worksheet* ws, lxw_row_t row) {
+/// Returns the row after the legend.
+lxw_row_t writeLegend(Book& bk, lxw_worksheet* ws, lxw_row_t row) {
   const model::Problem& p = bk.data.problem;
   Formats& f = bk.formats;
   Style bold;
@@ -262,9 +280,17 @@ void writeLegend(Book& bk, lxw_worksheet* ws, lxw_row_t row) {
   item(plain, "", "Weekend (day off)");
   plain.fill = kHolidayFill;
   item(plain, "", "Holiday (day off)");
-  plain.fill = kAbsenceFill;
-  plain.hatched = true;
-  item(plain, "", "Absence (day off)");
+  Style absence = plain;
+  absence.fill = kAbsenceFill;
+  absence.font = 0xFFFFFF;
+  absence.bold = true;
+  for (const std::string& code : bk.lists.absenceCodes)
+    item(absence, code, "Absent: " + *absenceCodeMeaning(p, code) + " (day off); the cell comment gives the reason and dates");
+  for (const std::string& clash : colourClashes(p)) {
+    Style warn;
+    warn.font = kSoftColour;
+    item(warn, "warning", clash);
+  }
   Style hard;
   hard.center = true;
   hard.bold = true;
@@ -283,10 +309,14 @@ void writeLegend(Book& bk, lxw_worksheet* ws, lxw_row_t row) {
     changed.borderColour = kChangedColour;
     item(changed, "", "Changed against the published roster (see the Changes sheet)");
   }
-  item(Style{}, "", "Cells show the shift id, with /skill where the person holds several skills; empty = off");
+  item(Style{}, "", "Cells show the shift id, with /skill where the person holds several skills; empty = off. "
+                    "Each cell offers a drop-down list of the codes the person may take; a code without /skill fills "
+                    "the person's main skill");
+  item(Style{}, "", "Hours, shift counts and weekends are formulas over the row: they follow any edit");
+  return row;
 }
 
-void setColumns(Book& bk, lxw_worksheet* ws, const Layout& l) {
+RosterWidths setColumns(Book& bk, lxw_worksheet* ws, const RosterLayout& l) {
   const model::Problem& p = bk.data.problem;
   size_t nameWidth = 8, idWidth = 4, cellWidth = 3;
   for (StaffIdx s = 0; s < p.staffCount(); ++s) {
@@ -294,40 +324,39 @@ void setColumns(Book& bk, lxw_worksheet* ws, const Layout& l) {
     idWidth = std::max(idWidth, p.staff[static_cast<size_t>(s)].id.size());
     for (DayIdx d = 0; d < p.days; ++d) cellWidth = std::max(cellWidth, p.taskText(bk.data.roster.at(s, d), s).size());
   }
-  check(worksheet_set_column(ws, kNameCol, kNameCol, static_cast<double>(std::min<size_t>(nameWidth, 32)) + 2, nullptr), "columns");
-  check(worksheet_set_column(ws, kIdCol, kIdCol, static_cast<double>(std::min<size_t>(idWidth, 20)) + 2, nullptr), "columns");
-  check(worksheet_set_column(ws, kFirstDayCol, dayCol(p.days - 1), static_cast<double>(std::max<size_t>(cellWidth, 4)) + 1.5,
-                             nullptr), "columns");
+  for (const std::string& code : bk.lists.absenceCodes) cellWidth = std::max(cellWidth, code.size());
+  RosterWidths w;
+  w.name = static_cast<double>(std::min<size_t>(nameWidth, 32)) + 2;
+  w.id = static_cast<double>(std::min<size_t>(idWidth, 20)) + 2;
+  w.day = static_cast<double>(std::max<size_t>(cellWidth, 4)) + 1.5;
+  check(worksheet_set_column(ws, kNameCol, kNameCol, w.name, nullptr), "columns");
+  check(worksheet_set_column(ws, kIdCol, kIdCol, w.id, nullptr), "columns");
+  check(worksheet_set_column(ws, kFirstDayCol, dayCol(p.days - 1), w.day, nullptr), "columns");
   check(worksheet_set_column(ws, l.totalsCol - 1, l.totalsCol - 1, 1.5, nullptr), "columns");
   check(worksheet_set_column(ws, l.totalsCol, l.maxCol(), 7, nullptr), "columns");
   check(worksheet_set_column(ws, l.shiftCol(0), l.weekendsCol, 6.5, nullptr), "columns");
-}
-
-void setPrint(lxw_worksheet* ws, const Layout& l, lxw_row_t lastRow) {
-  worksheet_set_landscape(ws);
-  worksheet_set_paper(ws, 9);  // A4
-  worksheet_set_margins(ws, 0.3, 0.3, 0.5, 0.5);
-  worksheet_fit_to_pages(ws, 1, 0);
-  check(worksheet_repeat_rows(ws, kTitleRow, kDateRow), "print titles");
-  check(worksheet_print_area(ws, 0, 0, lastRow, l.weekendsCol), "print area");
-  check(worksheet_set_footer(ws, "&L&A&RPage &P of &N"), "footer");
-  worksheet_freeze_panes(ws, kFirstPersonRow, kFirstDayCol);
+  check(worksheet_set_column(ws, l.skillCol, l.skillCol, 10, nullptr), "columns");
+  return w;
 }
 
 }  // namespace
 
 void writeRosterSheet(Book& bk) {
-  lxw_worksheet* ws = workbook_add_worksheet(bk.workbook, "Roster");
+  lxw_worksheet* ws = workbook_add_worksheet(bk.workbook, kRosterSheet);
   if (!ws) check(LXW_ERROR_MEMORY_MALLOC_FAILED, "Roster sheet");
   const model::Problem& p = bk.data.problem;
-  const Layout l = layoutFor(p);
+  const RosterLayout l = rosterLayout(p);
   const MarkMap marks = collectMarks(bk.data, l);
   writeHeader(bk, ws, l, marks);
   for (StaffIdx s = 0; s < p.staffCount(); ++s) writePerson(bk, ws, l, marks, s);
   const lxw_row_t legendRow = personRow(p.staffCount()) + 1;
-  writeLegend(bk, ws, legendRow);
-  setColumns(bk, ws, l);
-  setPrint(ws, l, legendRow + static_cast<lxw_row_t>(p.shifts.size()) + 8);
+  const lxw_row_t end = writeLegend(bk, ws, legendRow);
+  const RosterWidths widths = setColumns(bk, ws, l);
+  addRosterValidation(bk, ws);
+  addRosterConditionalFormats(bk, ws, l);
+  addHoursConditionalFormats(bk, ws, l);
+  setRosterPrint(bk, ws, l, widths, end - 1);
+  worksheet_freeze_panes(ws, kFirstPersonRow, kFirstDayCol);
   worksheet_set_comments_author(ws, const_cast<char*>("rotaweave"));
   worksheet_activate(ws);
 }

@@ -1,7 +1,9 @@
 /// @brief The workbook: opening, the shared helpers, the sheets in order, atomic commit.
 #include "io/xlsx_writer.hpp"
 
+#include <cmath>
 #include <cstdio>
+#include <iostream>
 
 #include "io/atomic_file.hpp"
 #include "io/input_error.hpp"
@@ -90,6 +92,27 @@ lxw_color_t shiftColour(const model::Problem& p, ShiftIdx shift) {
   return kPalette[static_cast<size_t>(shift) % (sizeof kPalette / sizeof kPalette[0])];
 }
 
+double colourDistance(lxw_color_t a, lxw_color_t b) {
+  const double dr = static_cast<double>((a >> 16) & 0xFF) - static_cast<double>((b >> 16) & 0xFF);
+  const double dg = static_cast<double>((a >> 8) & 0xFF) - static_cast<double>((b >> 8) & 0xFF);
+  const double db = static_cast<double>(a & 0xFF) - static_cast<double>(b & 0xFF);
+  return std::sqrt(dr * dr + dg * dg + db * db);
+}
+
+std::vector<std::string> colourClashes(const model::Problem& p) {
+  std::vector<std::string> out;
+  for (size_t s = 0; s < p.shifts.size(); ++s) {
+    const lxw_color_t c = parseColour(p.shifts[s].colour);
+    if (c == kNoColour || colourDistance(c, kAbsenceFill) >= kClashDistance) continue;
+    char fill[8];
+    std::snprintf(fill, sizeof fill, "#%06X", kAbsenceFill);
+    out.push_back("shift '" + p.shifts[s].id + "' colour " + p.shifts[s].colour + " is close to the absence fill " + fill +
+                  " of the workbook; choose a lighter or more saturated colour so that absences stand out (absence cells "
+                  "also carry a code such as LV or SK)");
+  }
+  return out;
+}
+
 lxw_color_t textColourOn(lxw_color_t fill) {
   const double r = (fill >> 16) & 0xFF, g = (fill >> 8) & 0xFF, b = fill & 0xFF;
   return 0.299 * r + 0.587 * g + 0.114 * b < 140 ? 0xFFFFFF : 0x000000;
@@ -149,13 +172,18 @@ void XlsxWriter::write(const std::filesystem::path& dir, const OutputBundle& bun
   props.comments = note.data();
   xlsx::check(workbook_set_properties(guard.book, &props), "properties");
 
+  for (const std::string& clash : xlsx::colourClashes(bundle.problem)) std::cerr << "warning: " << clash << "\n";
+
   xlsx::Formats formats(guard.book);
-  xlsx::Book book{guard.book, formats, bundle};
+  const xlsx::ListsPlan lists = xlsx::planLists(bundle.problem);
+  xlsx::Book book{guard.book, formats, bundle, lists};
   xlsx::writeRosterSheet(book);
   xlsx::writeCoverSheet(book);
   xlsx::writeViolationsSheet(book);
   xlsx::writeSummarySheet(book);
   xlsx::writeChangesSheet(book);
+  xlsx::writeBaselineSheet(book);
+  xlsx::writeListsSheet(book);
 
   lxw_workbook* finished = guard.book;
   guard.book = nullptr;

@@ -9,6 +9,7 @@
 #include "analysis/capacity.hpp"
 #include "model/problem.hpp"
 #include "model/roster.hpp"
+#include "report/baseline.hpp"
 #include "report/changes.hpp"
 #include "rules/breach.hpp"
 
@@ -54,6 +55,7 @@ struct Report {
   RunInfo run;
   std::optional<analysis::CapacityReport> capacity;  ///< What the staff can cover at best, set against this roster.
   std::optional<ChangeSummary> changes;  ///< replan only: cells changed against the published roster.
+  std::optional<BaselineDiff> baseline;  ///< check --baseline only: against the roster it came from.
 };
 
 Report buildReport(const model::Problem& problem, const model::Roster& roster, std::vector<rules::Breach> breaches,

@@ -45,6 +45,7 @@ std::string renderSummary(const Report& r) {
   for (const auto& s : r.byRule)
     out << "  " << pad(s.hard ? "hard" : "soft", 5) << pad(s.ruleId, 28) << s.count << (s.count == 1 ? " breach" : " breaches") << "\n";
   if (r.changes) out << "changes against the published roster: " << r.changes->cellCount() << " cells, " << r.changes->people << " people\n";
+  if (r.baseline) out << "against the baseline: " << baselineLine(*r.baseline) << "\n";
   return out.str();
 }
 
@@ -79,6 +80,7 @@ std::string renderText(const Report& r, const model::Problem& p) {
   }
 
   if (r.changes) out << "\n" << renderChangesText(*r.changes, p);
+  if (r.baseline) out << "\n" << renderBaselineText(*r.baseline, p);
 
   if (r.capacity) out << "\nCAPACITY (what the staff on hand can cover at best, whatever the roster)\n" << analysis::renderCapacityText(*r.capacity, p);
 
