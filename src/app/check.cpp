@@ -9,6 +9,7 @@ namespace rotaweave::app {
 Outcome check(const std::string& scenario, const std::string& rosterPath, const std::filesystem::path& out) {
   refuseToOverwrite(rosterPath, out);
   const model::Problem problem = io::loadScenario(scenario);
+  printNotes(problem);
   const model::Roster roster = io::readRosterCsv(rosterPath, problem);
   report::RunInfo run;
   run.command = "check";

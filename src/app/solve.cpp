@@ -31,6 +31,7 @@ Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::R
 
 Outcome solve(const SolveRequest& request) {
   const model::Problem problem = io::loadScenario(request.scenario);
+  printNotes(problem);
   return searchAndWrite(problem, {}, request, "solve");
 }
 

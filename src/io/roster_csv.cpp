@@ -14,6 +14,13 @@ std::vector<std::string> staffIds(const model::Problem& p) {
   return ids;
 }
 
+std::string joinIds(const std::vector<std::string>& ids) {
+  std::string out;
+  for (size_t i = 0; i < ids.size() && i < 12; ++i) out += (i ? ", " : "") + ids[i];
+  if (ids.size() > 12) out += " and " + std::to_string(ids.size() - 12) + " more";
+  return out;
+}
+
 TaskIdx parseCell(const std::string& cell, StaffIdx s, const model::Problem& p, const std::string& file, int line, int col) {
   if (cell.empty()) return kOff;
   const size_t slash = cell.find('/');
@@ -23,7 +30,7 @@ TaskIdx parseCell(const std::string& cell, StaffIdx s, const model::Problem& p, 
   for (const auto& sh : p.shifts) shiftIds.push_back(sh.id);
   if (shift == kNoShift)
     throw InputError(file, line, col, "unknown shift '" + shiftId + "'" + didYouMean(shiftId, shiftIds) +
-                                          "; use a shift id, SHIFT/skill, or leave the cell empty for off");
+                                          "; use a shift id (" + joinIds(shiftIds) + "), SHIFT/skill, or leave the cell empty for off");
   SkillIdx skill = p.staff[static_cast<size_t>(s)].skills.front();
   if (slash != std::string::npos) {
     const std::string skillId = trimCell(cell.substr(slash + 1));
