@@ -152,5 +152,8 @@ TEST_SUITE("absence-credit") {
     const std::string err = loadError(header(7) + "staff:\n  - {id: ana, skills: [rn], fixed: [{date: 2027-03-02, shift: X}]}\n");
     CHECK(err.find("unknown shift 'X'") != std::string::npos);
     CHECK(err.find("known shifts: E, L, N") != std::string::npos);
+    // PyYAML writes an unquoted `off` in a history list back as false.
+    const std::string history = loadError(header(7) + "staff:\n  - {id: ana, skills: [rn], history: [E, false]}\n");
+    CHECK(history.find("write 'off' in quotes") != std::string::npos);
   }
 }
