@@ -223,7 +223,7 @@ void loadAbsences(LoadContext& ctx, StaffIdx s, const Field& f) {
 /// as `false:`; say so instead of calling it an unknown key.
 void refuseBooleanKey(const Field& entry) {
   if (!entry.isMap()) return;
-  for (const char* key : {"false", "False", "FALSE", "no", "No"})
+  for (const char* key : {"false", "False", "FALSE"})
     if (entry.has(key))
       entry.get(key).fail(std::string("key '") + key +
                           "' is how YAML 1.1 tools such as Python's PyYAML write the key `off` (they read an unquoted off "
