@@ -314,12 +314,18 @@ CapacityReport analyseCapacity(const Problem& p) {
     }
     r.totals.available += ps.possibleMinutes;
     const model::Contract* contract = person.contract >= 0 ? &p.contracts[static_cast<size_t>(person.contract)] : nullptr;
-    if (contract && contract->maxMinutes) maxSum += *contract->maxMinutes;
+    // Contract hours count what absences credit, so the minutes to be worked are the
+    // contract's bounds less the credit.
+    const int credit = p.credit(s);
+    ps.creditMinutes = credit;
+    if (contract && contract->maxMinutes) maxSum += std::max(0, *contract->maxMinutes - credit);
     else everyMax = false;
     if (!contract || !contract->minMinutes) continue;
-    r.totals.contractMin += *contract->minMinutes;
+    const int needed = std::max(0, *contract->minMinutes - credit);
+    r.totals.contractMin += needed;
     ps.hard = contract->hard;
-    ps.neededMinutes = *contract->minMinutes;
+    ps.neededMinutes = needed;
+    if (needed == 0) continue;
     if (ps.possibleMinutes < ps.neededMinutes) r.people.push_back(ps);
 
     const int shortMinutes = ps.neededMinutes - boundBase;

@@ -61,7 +61,8 @@ struct PersonShortfall {
   StaffIdx staff = 0;
   int contract = -1;
   bool hard = false;         ///< The contract's hours are a hard rule.
-  int neededMinutes = 0;     ///< Contract minimum.
+  int neededMinutes = 0;     ///< Contract minimum less what absences credit (minutes to be worked).
+  int creditMinutes = 0;     ///< Credited by absences (Problem::credit).
   int possibleMinutes = 0;   ///< Most paid minutes on the available days.
   int availableDays = 0;
   int longestMinutes = 0;    ///< Longest paid shift the person can work.
@@ -73,8 +74,8 @@ struct PersonShortfall {
 struct Totals {
   long long demandMin = 0;     ///< Sum of minimums times the paid length of their shift.
   long long demandTarget = 0;
-  long long contractMin = 0;   ///< Sum of contract minimums over the staff.
-  long long contractMax = -1;
+  long long contractMin = 0;   ///< Sum of contract minimums over the staff, less what absences credit.
+  long long contractMax = -1;  ///< Sum of contract maximums, less credit (each at least 0).
   long long available = 0;     ///< Most paid minutes all staff could give on their available days.
   bool demandAboveContractMax = false;  ///< Minimum cover needs more hours than the contracts allow.
   bool demandAboveAvailable = false;

@@ -106,7 +106,8 @@ std::string describe(const DayShortfall& s, const Problem& p) {
 std::string describe(const PersonShortfall& s, const Problem& p) {
   const auto& person = p.staff[static_cast<size_t>(s.staff)];
   std::string out = person.id + ": contract " + p.contracts[static_cast<size_t>(s.contract)].id + " asks at least " +
-                    hoursText(s.neededMinutes) + ", at most " + hoursText(s.possibleMinutes) + " possible on " +
+                    hoursText(s.neededMinutes) + (s.creditMinutes > 0 ? " of work (after " + hoursText(s.creditMinutes) + " credited for absences)" : "") +
+                    ", at most " + hoursText(s.possibleMinutes) + " possible on " +
                     std::to_string(s.availableDays) + " available day" + (s.availableDays == 1 ? "" : "s") +
                     " (longest shift " + hoursText(s.longestMinutes);
   if (!s.absentDays.empty()) out += "; absent " + wording::daysText(p, s.absentDays);

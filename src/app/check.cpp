@@ -14,6 +14,7 @@ Outcome check(const std::string& scenario, const std::string& rosterPath, const 
   io::OutputFolder folder(out);  // checked and locked before anything is read
   if (!baselinePath.empty()) refuseToOverwrite(baselinePath, out);
   const model::Problem problem = io::loadScenario(scenario);
+  printNotes(problem);
   const model::Roster roster = io::readRosterCsv(rosterPath, problem);
   // Read both rosters before anything is written: a bad baseline writes nothing either.
   std::optional<model::Roster> baseline;

@@ -2,6 +2,7 @@
 #include "app/pipeline.hpp"
 
 #include <algorithm>
+#include <iostream>
 
 #include "analysis/capacity.hpp"
 #include "eval/evaluator.hpp"
@@ -10,6 +11,10 @@
 #include "report/changes.hpp"
 
 namespace rotaweave::app {
+
+void printNotes(const model::Problem& problem) {
+  for (const auto& note : problem.notes) std::cerr << "note: " << note << "\n";
+}
 
 void refuseToOverwrite(const std::filesystem::path& input, const std::filesystem::path& out) {
   std::error_code ec;

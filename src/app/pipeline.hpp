@@ -12,6 +12,9 @@
 
 namespace rotaweave::app {
 
+/// Prints the loader's notes (Problem::notes) to stderr, one "note: ..." line each.
+void printNotes(const model::Problem& problem);
+
 /// Throws io::OutputError if writing roster.csv into `out` would replace the file `input`.
 void refuseToOverwrite(const std::filesystem::path& input, const std::filesystem::path& out);
 

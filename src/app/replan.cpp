@@ -122,6 +122,8 @@ Outcome replan(const ReplanRequest& request) {
   checkPublishedFits(request.publishedRoster, problem);
   const model::Roster published = io::readRosterCsv(request.publishedRoster, problem);
   for (const auto& a : request.absences) applyAbsence(problem, a, first);
+  model::computeAbsenceCredit(problem);  // absences given here credit hours as those in the scenario
+  printNotes(problem);
 
   problem.published = model::Published{published.cells, first};
   // Days before --from are frozen exactly as published, even where they break a rule:

@@ -30,6 +30,7 @@ Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::R
 Outcome solve(const SolveRequest& request) {
   io::OutputFolder out(request.out);  // checked and locked before anything is read or searched
   const model::Problem problem = io::loadScenario(request.scenario);
+  printNotes(problem);
   return searchAndWrite(problem, {}, request, "solve", out);
 }
 

@@ -528,7 +528,10 @@ std::string toScenarioYaml(const Instance& instance, const std::string& name) {
         << "name: " << scalar(name) << "\n"
         << "period: {start: " << dateOf(0) << ", end: " << dateOf(instance.horizon - 1) << "}\n"
         << "weekend: [sat, sun]\n"
-        << "skills: [any]\n";
+        << "skills: [any]\n"
+        // The benchmark's days off are days a person cannot work, not paid leave: its hours
+        // bounds count hours worked only.
+        << "absence_credit: {day off: 0}\n";
     writeShifts(out, instance);
     writeStaff(out, instance);
     writeDemand(out, instance);

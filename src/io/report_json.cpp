@@ -44,7 +44,16 @@ std::string breachJson(const rules::Breach& b, const model::Problem& p) {
       << "\", \"staff\": " << (b.staff >= 0 ? jsonString(p.staff[static_cast<size_t>(b.staff)].id) : std::string("null")) << ", \"dates\": [";
   for (size_t k = 0; k < b.days.size(); ++k) out << (k ? ", " : "") << "\"" << p.dateText(b.days[k]) << "\"";
   out << "], \"amount\": " << report::amountText(b.amount) << ", \"penalty\": " << report::pointsText(b.penalty)
-      << ", \"message\": " << jsonString(b.message) << "}";
+      << ", \"shortfall\": " << report::amountText(b.shortfall >= 0 ? b.shortfall : b.amount)
+      << ", \"shortfall_unit\": " << jsonString(report::shortfallUnit(b));
+  if (b.windowLast >= 0)
+    out << ", \"window_start\": \"" << p.dateText(b.windowFirst) << "\", \"window_end\": \"" << p.dateText(b.windowLast) << "\"";
+  if (b.kind == "cover" && b.task > 0) {
+    const model::Task& t = p.tasks[static_cast<size_t>(b.task)];
+    out << ", \"shift\": " << jsonString(p.shifts[static_cast<size_t>(t.shift)].id)
+        << ", \"skill\": " << jsonString(p.skills[static_cast<size_t>(t.skill)]);
+  }
+  out << ", \"message\": " << jsonString(b.message) << "}";
   return out.str();
 }
 
@@ -117,6 +126,18 @@ std::string reportJson(const report::Report& r, const model::Problem& p) {
     out << (r.changes->cells.empty() ? "]},\n" : "\n  ]},\n");
   }
   if (r.baseline) out << "  \"baseline\": " << baselineJson(*r.baseline, p) << ",\n";
+  out << "  \"people\": [";
+  for (size_t i = 0; i < r.byPerson.size(); ++i) {
+    const auto& ps = r.byPerson[i];
+    out << (i ? ",\n    " : "\n    ") << "{\"staff\": " << jsonString(p.staff[static_cast<size_t>(ps.staff)].id)
+        << ", \"worked_hours\": " << amountText(ps.paidMinutes) << ", \"credited_hours\": " << amountText(ps.creditMinutes)
+        << ", \"counted_hours\": " << amountText(ps.paidMinutes + ps.creditMinutes) << ", \"absent_days\": " << ps.absentDays
+        << ", \"shifts\": " << ps.shiftsWorked << ", \"weekends\": " << ps.weekendsWorked << "}";
+  }
+  out << (r.byPerson.empty() ? "],\n" : "\n  ],\n");
+  out << "  \"notes\": [";
+  for (size_t i = 0; i < r.notes.size(); ++i) out << (i ? ", " : "") << jsonString(r.notes[i]);
+  out << "],\n";
   if (r.capacity) out << "  \"capacity\": " << analysis::renderCapacityJson(*r.capacity, p) << ",\n";
   out << "  \"caution\": " << jsonString(report::cautionText()) << "\n}\n";
   return out.str();

@@ -24,6 +24,13 @@ std::vector<std::string> staffIds(const model::Problem& p) {
   return ids;
 }
 
+std::string joinIds(const std::vector<std::string>& ids) {
+  std::string out;
+  for (size_t i = 0; i < ids.size() && i < 12; ++i) out += (i ? ", " : "") + ids[i];
+  if (ids.size() > 12) out += " and " + std::to_string(ids.size() - 12) + " more";
+  return out;
+}
+
 TaskIdx parseCell(const std::string& cell, StaffIdx s, const model::Problem& p, const std::string& file, int line, int col) {
   std::string why;
   const auto task = parseRosterCell(cell, s, p, why);
@@ -57,7 +64,8 @@ std::optional<TaskIdx> parseRosterCell(const std::string& cell, StaffIdx s, cons
     if (absenceCodeMeaning(p, cell)) return kOff;  // the workbook shows absence days as LV, SK, ...
     std::vector<std::string> shiftIds;
     for (const auto& sh : p.shifts) shiftIds.push_back(sh.id);
-    error = "unknown shift '" + shiftId + "'" + didYouMean(shiftId, shiftIds) + "; use a shift id, SHIFT/skill, or leave the cell empty for off";
+    error = "unknown shift '" + shiftId + "'" + didYouMean(shiftId, shiftIds) + "; use a shift id (" + joinIds(shiftIds) +
+            "), SHIFT/skill, or leave the cell empty for off";
     return std::nullopt;
   }
   SkillIdx skill = p.staff[static_cast<size_t>(s)].skills.front();

@@ -75,7 +75,8 @@ void loadParam(LoadContext& ctx, const model::ParamInfo& info, const Field& f, R
       spec.earlyWeight = f.weight();
       break;
     case ParamType::Bool:
-      spec.weekends = f.boolean();
+      if (key == "credit_absences") spec.creditAbsences = f.boolean();
+      else spec.weekends = f.boolean();
       break;
   }
 }
@@ -111,6 +112,13 @@ RuleSpec loadRule(LoadContext& ctx, const Field& entry) {
       loadParam(ctx, param, entry.get(param.key), spec);
     else if (param.required)
       entry.fail("rule '" + kindName + "' needs '" + param.key + "' (" + param.help + ")");
+  }
+  if (spec.windowDays > 0) {
+    // A rolling window limits hours actually worked (fatigue); leave does not tire anyone.
+    if (entry.has("credit_absences") && spec.creditAbsences)
+      entry.get("credit_absences").fail("absence credit counts toward totals of the whole period only; a rolling window "
+                                        "counts hours worked: leave credit_absences out or drop window_days");
+    spec.creditAbsences = false;
   }
   if (spec.kind == RuleKind::FairShare && spec.weekends == (spec.shift != kNoShift))
     entry.fail("fair-share needs either shift: ID or weekends: true");

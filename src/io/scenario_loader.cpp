@@ -27,9 +27,23 @@ std::vector<std::string> idsOf(const std::vector<T>& items, GetId&& getId) {
   return out;
 }
 
+/// "E, L, N", or the first 12 and how many more.
+std::string knownList(const std::vector<std::string>& known) {
+  constexpr size_t kShown = 12;
+  std::string out;
+  for (size_t i = 0; i < known.size() && i < kShown; ++i) out += (i ? ", " : "") + known[i];
+  if (known.size() > kShown) out += " and " + std::to_string(known.size() - kShown) + " more";
+  return out;
+}
+
 [[noreturn]] void unknown(const Field& f, const std::string& what, const std::string& id,
                           const std::vector<std::string>& known) {
-  f.fail("unknown " + what + " '" + id + "'" + didYouMean(id, known) + "; declare it first or fix the spelling");
+  std::string message = "unknown " + what + " '" + id + "'" + didYouMean(id, known);
+  // YAML 1.1 tools (Python's PyYAML) read an unquoted `off` as a boolean and write it back as false.
+  if (what == "shift" && (id == "false" || id == "False"))
+    message += " (a YAML 1.1 tool such as Python's PyYAML turns an unquoted `off` into false; write 'off' in quotes)";
+  f.fail(message + "; known " + what + "s: " + knownList(known) +
+         "; declare it first or fix the spelling");
 }
 
 }  // namespace
@@ -148,7 +162,7 @@ void loadSkills(LoadContext& ctx, const Field& f) {
 
 void loadContracts(LoadContext& ctx, const Field& f) {
   for (const auto& [id, c] : f.entries()) {
-    c.allowOnly({"hours", "severity", "weight"});
+    c.allowOnly({"hours", "daily_hours", "severity", "weight"});
     model::Contract contract;
     contract.id = id;
     contract.origin = c.file() + ":" + std::to_string(c.node().Mark().line + 1);
@@ -160,6 +174,7 @@ void loadContracts(LoadContext& ctx, const Field& f) {
       if (contract.minMinutes && contract.maxMinutes && *contract.minMinutes > *contract.maxMinutes)
         h.fail("hours.min is above hours.max");
     }
+    if (c.has("daily_hours")) contract.dailyMinutes = c.get("daily_hours").minutesFromHours(0, 24);
     if (c.has("severity")) {
       const std::string sev = c.get("severity").text();
       if (sev != "hard" && sev != "soft") c.get("severity").fail("severity must be hard or soft");
@@ -183,24 +198,50 @@ void loadAbsences(LoadContext& ctx, StaffIdx s, const Field& f) {
       if (to < from) a.get("to").fail("the absence ends before it starts");
     }
     const std::string reason = a.has("reason") ? a.get("reason").text() : "";
-    // Absences may run past the period (a long leave); only the days inside matter.
-    for (model::DateSerial d = std::max(from, p.start); d <= std::min(to, p.start + p.days - 1); ++d) {
+    const model::DateSerial last = p.start + p.days - 1;
+    const std::string range = model::formatIsoDate(from) + (to == from ? "" : " to " + model::formatIsoDate(to));
+    // Wholly outside is most likely a wrong month or year: the person would be rostered on
+    // the real leave days, so it is an error, as for requests and fixed cells.
+    if (to < p.start || from > last)
+      (a.has("date") ? a.get("date") : a.get(to < p.start ? "to" : "from"))
+          .fail("the absence " + range + " is outside the period " + p.dateText(0) + " to " + p.dateText(p.days - 1) +
+                "; fix the dates (a wrong month or year?) or leave the absence out");
+    // Partly outside is a long leave: only the days inside matter.
+    if (from < p.start || to > last)
+      ctx.problem.notes.push_back(a.file() + ":" + std::to_string(a.node().Mark().line + 1) + ": the absence of " +
+                                  p.staff[static_cast<size_t>(s)].id + " (" + range + ") runs outside the period; only " +
+                                  model::formatIsoDate(std::max(from, p.start)) + " to " + model::formatIsoDate(std::min(to, last)) +
+                                  " count");
+    for (model::DateSerial d = std::max(from, p.start); d <= std::min(to, last); ++d) {
       p.absent[p.cell(s, d - p.start)] = 1;
       p.absenceReason[p.cell(s, d - p.start)] = reason;
     }
   }
 }
 
+/// YAML 1.1 tools (Python's PyYAML) read the key `off` as the boolean false and write it back
+/// as `false:`; say so instead of calling it an unknown key.
+void refuseBooleanKey(const Field& entry) {
+  if (!entry.isMap()) return;
+  for (const char* key : {"false", "False", "FALSE"})
+    if (entry.has(key))
+      entry.get(key).fail(std::string("key '") + key +
+                          "' is how YAML 1.1 tools such as Python's PyYAML write the key `off` (they read an unquoted off "
+                          "as a boolean); write day_off: true, which every YAML tool keeps as it is");
+}
+
 void loadRequests(LoadContext& ctx, model::Person& person, const Field& f) {
   for (const Field& r : f.items()) {
-    r.allowOnly({"date", "off", "shift", "not", "weight"});
+    refuseBooleanKey(r);
+    r.allowOnly({"date", "off", "day_off", "shift", "not", "weight"});
     model::Request req;
     req.day = ctx.periodDay(r.require("date"));
-    const int kinds = r.has("off") + r.has("shift") + r.has("not");
-    if (kinds != 1) r.fail("a request needs exactly one of off: true, shift: ID or not: ID");
+    const int kinds = r.has("off") + r.has("day_off") + r.has("shift") + r.has("not");
+    if (kinds != 1) r.fail("a request needs exactly one of day_off: true (or off: true), shift: ID or not: ID");
     using K = model::Request::Kind;
-    if (r.has("off")) {
-      if (!r.get("off").boolean()) r.get("off").fail("write off: true, or leave the request out");
+    if (r.has("off") || r.has("day_off")) {
+      const char* key = r.has("off") ? "off" : "day_off";
+      if (!r.get(key).boolean()) r.get(key).fail(std::string("write ") + key + ": true, or leave the request out");
       req.kind = K::Off;
     } else if (r.has("shift")) {
       req.kind = K::Shift;
@@ -218,10 +259,17 @@ void loadFixed(LoadContext& ctx, StaffIdx s, const Field& f) {
   auto& p = ctx.problem;
   const auto& person = p.staff[static_cast<size_t>(s)];
   for (const Field& x : f.items()) {
-    x.allowOnly({"date", "shift", "skill", "off"});
+    refuseBooleanKey(x);
+    x.allowOnly({"date", "shift", "skill", "off", "day_off"});
     const DayIdx d = ctx.periodDay(x.require("date"));
     TaskIdx task = kOff;
-    if (x.has("off") == x.has("shift")) x.fail("a fixed cell needs either shift: ID or off: true");
+    const bool off = x.has("off") || x.has("day_off");
+    if (x.has("off") && x.has("day_off")) x.fail("give day_off: true or off: true, not both");
+    if (off == x.has("shift")) x.fail("a fixed cell needs either shift: ID or day_off: true (or off: true)");
+    if (off) {
+      const char* key = x.has("off") ? "off" : "day_off";
+      if (!x.get(key).boolean()) x.get(key).fail(std::string("write ") + key + ": true for a fixed day off, or leave the entry out");
+    }
     if (x.has("shift")) {
       const ShiftIdx sh = ctx.shift(x.get("shift"));
       SkillIdx sk = person.skills.front();
@@ -354,6 +402,28 @@ void loadDemand(LoadContext& ctx, const Field& f) {
   }
 }
 
+/// `absence_credit:` maps a reason to `daily` (the person's usual day), hours per absent
+/// working day, or 0; entries replace the built-in defaults of the same reason.
+void loadAbsenceCredit(LoadContext& ctx, const Field& f) {
+  if (!f.isMap()) f.fail("absence_credit is a map of reason to daily, hours or 0, e.g. {leave: daily, training: 6, unpaid: 0}");
+  auto& credits = ctx.problem.absenceCredit;
+  for (const auto& [reason, value] : f.entries()) {
+    model::AbsenceCredit c;
+    c.reason = reason;
+    c.origin = value.file() + ":" + std::to_string(value.node().Mark().line + 1);
+    if (value.isScalar() && value.node().Scalar() == "daily") {
+      c.daily = true;
+    } else {
+      if (!value.isScalar()) value.fail("write daily, a number of hours per absent working day, or 0");
+      c.daily = false;
+      c.minutes = value.minutesFromHours(0, 24);
+    }
+    auto it = std::find_if(credits.begin(), credits.end(), [&](const model::AbsenceCredit& x) { return x.reason == reason; });
+    if (it != credits.end()) *it = c;
+    else credits.push_back(c);
+  }
+}
+
 void loadHolidays(LoadContext& ctx, const Field& f) {
   auto& p = ctx.problem;
   p.holiday.assign(static_cast<size_t>(p.days), 0);
@@ -371,7 +441,8 @@ model::Problem loadScenario(const std::string& path) {
   LoadContext ctx{problem, path, {}};
   const Field root(Field::parseFile(path), "", &ctx.scenarioFile);
   if (!root.isMap()) root.fail("a scenario must be a map with keys such as period, shifts, skills, staff");
-  root.allowOnly({"name", "description", "period", "weekend", "holidays", "shifts", "skills", "contracts", "staff", "demand", "rules"});
+  root.allowOnly({"name", "description", "period", "weekend", "holidays", "shifts", "skills", "contracts", "absence_credit",
+                  "staff", "demand", "rules"});
 
   problem.name = root.has("name") ? root.get("name").text() : path;
   loadPeriod(ctx, root.require("period"));
@@ -392,6 +463,8 @@ model::Problem loadScenario(const std::string& path) {
     loadDemand(ctx, root.get("demand"));
   else
     problem.demand.assign(static_cast<size_t>(problem.days) * problem.tasks.size(), model::DemandCell{});
+  if (root.has("absence_credit")) loadAbsenceCredit(ctx, root.get("absence_credit"));
+  model::computeAbsenceCredit(problem);
   detail::addImpliedRules(problem);
   if (root.has("rules")) detail::loadRules(ctx, root.get("rules"));
   return problem;

@@ -207,8 +207,9 @@ void writePerson(Book& bk, lxw_worksheet* ws, const RosterLayout& l, const MarkM
   Style hours;
   hours.numFormat = "0.0#";
   hours.center = true;
-  const bool under = contract && contract->minMinutes && paid < *contract->minMinutes;
-  const bool over = contract && contract->maxMinutes && paid > *contract->maxMinutes;
+  const int counted = paid + sum.creditMinutes;  // contract hours count absence credit
+  const bool under = contract && contract->minMinutes && counted < *contract->minMinutes;
+  const bool over = contract && contract->maxMinutes && counted > *contract->maxMinutes;
   if (under || over) {
     hours.font = contract->hard ? kHardColour : kSoftColour;
     hours.bold = true;

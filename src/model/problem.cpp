@@ -33,6 +33,72 @@ SkillIdx Problem::findSkill(const std::string& id) const {
   return -1;
 }
 
+std::vector<AbsenceCredit> defaultAbsenceCredit() {
+  // Common practice: paid leave, sick leave and training count as time worked toward
+  // contracted hours; unpaid leave does not. Any other reason counts the usual day.
+  const char* origin = "built-in default";
+  return {{"leave", true, 0, origin}, {"sick", true, 0, origin}, {"training", true, 0, origin},
+          {"unpaid", false, 0, origin}, {"default", true, 0, origin}};
+}
+
+const AbsenceCredit& creditFor(const Problem& p, const std::string& reason) {
+  const AbsenceCredit* fallback = nullptr;
+  for (const AbsenceCredit& c : p.absenceCredit) {
+    if (c.reason == reason) return c;
+    if (c.reason == "default") fallback = &c;
+  }
+  static const AbsenceCredit kUsualDay{"default", true, 0, "built-in default"};
+  return fallback ? *fallback : kUsualDay;
+}
+
+bool creditedDay(const Problem& p, DayIdx d) {
+  const auto i = static_cast<size_t>(d);
+  return !(i < p.weekend.size() && p.weekend[i]) && !(i < p.holiday.size() && p.holiday[i]);
+}
+
+void computeAbsenceCredit(Problem& p) {
+  int workingDays = 0;
+  for (DayIdx d = 0; d < p.days; ++d) workingDays += creditedDay(p, d);
+  long long shiftPaid = 0;
+  for (const ShiftType& sh : p.shifts) shiftPaid += sh.paidMinutes();
+  const int meanShift = p.shifts.empty() ? 0 : static_cast<int>(shiftPaid / static_cast<long long>(p.shifts.size()));
+  p.creditByDay.assign(p.staff.size() * static_cast<size_t>(p.days), 0);
+  p.creditMinutes.assign(p.staff.size(), 0);
+  for (StaffIdx s = 0; s < p.staffCount(); ++s) {
+    Person& person = p.staff[static_cast<size_t>(s)];
+    // The usual day: the contract's daily_hours; else its hours (the minimum, or the maximum
+    // where only that is given) spread over the period's working days; else a mean shift.
+    // A share of the contract hours is spread without rounding drift: the k-th credited day
+    // gets floor(H (k + 1) / W) - floor(H k / W), so a whole period away credits exactly H.
+    person.dailyMinutes = meanShift;
+    long long share = 0;  // H where the day is a share of the contract hours, else 0
+    if (person.contract >= 0) {
+      const Contract& c = p.contracts[static_cast<size_t>(person.contract)];
+      const std::optional<int> hours = c.minMinutes ? c.minMinutes : c.maxMinutes;
+      if (c.dailyMinutes) {
+        person.dailyMinutes = *c.dailyMinutes;
+      } else if (hours && workingDays > 0) {
+        person.dailyMinutes = *hours / workingDays;
+        share = *hours;
+      }
+    }
+    if (p.absent.empty()) continue;
+    long long k = 0;
+    for (DayIdx d = 0; d < p.days; ++d) {
+      const size_t cell = p.cell(s, d);
+      if (!p.absent[cell] || !creditedDay(p, d)) continue;
+      const AbsenceCredit& rule = creditFor(p, p.absenceReason[cell]);
+      int minutes = rule.minutes;
+      if (rule.daily) {
+        minutes = share > 0 ? static_cast<int>(share * (k + 1) / workingDays - share * k / workingDays) : person.dailyMinutes;
+        ++k;
+      }
+      p.creditByDay[cell] = minutes;
+      p.creditMinutes[static_cast<size_t>(s)] += minutes;
+    }
+  }
+}
+
 void buildDerivedTables(Problem& p, const std::vector<int>& weekendDays) {
   p.tasks.assign(1, Task{});
   p.taskOf.assign(p.shifts.size() * p.skills.size(), kOff);

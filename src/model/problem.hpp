@@ -33,6 +33,7 @@ struct Contract {
   std::string id;
   std::optional<int> minMinutes;
   std::optional<int> maxMinutes;
+  std::optional<int> dailyMinutes;  ///< `daily_hours`: what a day of leave counts for.
   bool hard = false;
   Cost weight = kWeightScale;
   std::string origin;
@@ -54,6 +55,9 @@ struct Person {
   std::uint64_t skillMask = 0;      ///< Bit k set if the person holds skill k.
   std::vector<Request> requests;
   std::vector<ShiftIdx> history;    ///< Days before the period, oldest first; kNoShift = off.
+  /// Usual paid minutes of a working day: what a `daily` absence credit is worth (see
+  /// computeAbsenceCredit for the default).
+  int dailyMinutes = 0;
   bool holds(SkillIdx skill) const { return (skillMask >> skill) & 1U; }
 };
 
@@ -70,6 +74,18 @@ struct DemandCell {
   /// People the cell asks for: its target, or its minimum where that is higher.
   int wanted() const { return min > target ? min : target; }
 };
+
+/// What an absence reason credits toward hours rules on each absent working day.
+struct AbsenceCredit {
+  std::string reason;  ///< "default" stands for every reason not listed (and none).
+  bool daily = true;   ///< the person's usual daily minutes; otherwise `minutes`.
+  int minutes = 0;
+  std::string origin;  ///< "file:line", or "built-in default".
+};
+
+/// The built-in credits: leave, sick and training count the usual day, unpaid nothing, and any
+/// other reason (or none) the usual day. A scenario's `absence_credit:` overrides them.
+std::vector<AbsenceCredit> defaultAbsenceCredit();
 
 /// A roster published earlier; re-planning keeps days before `from` and charges changes after.
 struct Published {
@@ -103,10 +119,23 @@ struct Problem {
   std::vector<TaskIdx> fixed;              ///< [staff * days + day]; -1 none, 0 fixed off.
   std::vector<DemandCell> demand;          ///< [day * tasks + task]
 
+  /// Per reason; see defaultAbsenceCredit().
+  std::vector<AbsenceCredit> absenceCredit = defaultAbsenceCredit();
+  /// Minutes credited per [staff * days + day] (0 on days not absent, weekend days and holidays)
+  /// and their total per person: what hours rules of the period add to the paid minutes.
+  /// Derived from `absent`; call computeAbsenceCredit after changing absences.
+  std::vector<int> creditByDay;
+  std::vector<int> creditMinutes;
+  /// Things the loader changed or assumed that the user should know (an absence clipped to
+  /// the period, ...); shown on stderr and in the report.
+  std::vector<std::string> notes;
+
   std::vector<RuleSpec> rules;  ///< Listed rules plus those implied by contracts.
   std::optional<Published> published;
   int maxHistory = 0;
 
+  /// Minutes person s's absences credit toward hours rules of the whole period.
+  int credit(StaffIdx s) const { return creditMinutes.empty() ? 0 : creditMinutes[static_cast<size_t>(s)]; }
   int staffCount() const { return static_cast<int>(staff.size()); }
   int taskCount() const { return static_cast<int>(tasks.size()); }
   size_t cell(StaffIdx s, DayIdx d) const { return static_cast<size_t>(s) * static_cast<size_t>(days) + static_cast<size_t>(d); }
@@ -122,6 +151,14 @@ struct Problem {
   ShiftIdx findShift(const std::string& id) const;
   SkillIdx findSkill(const std::string& id) const;
 };
+
+/// The credit rule of an absence reason (the "default" entry for reasons not listed).
+const AbsenceCredit& creditFor(const Problem& p, const std::string& reason);
+/// A working day for absence credit: not a weekend day and not a holiday.
+bool creditedDay(const Problem& p, DayIdx d);
+/// Fills creditByDay and creditMinutes from absent, absenceReason, absenceCredit and each
+/// person's dailyMinutes. Cheap (one pass over the cells); call after absences change.
+void computeAbsenceCredit(Problem& p);
 
 /// Fills tasks, taskOf and the per-date weekend tables from shifts, skills and the calendar.
 void buildDerivedTables(Problem& p, const std::vector<int>& weekendDays);

@@ -73,6 +73,7 @@ struct RuleSpec {
   int count = 0;                      ///< days or count, depending on kind.
   int minutes = 0;                    ///< hours rules: bound in minutes.
   int windowDays = 0;                 ///< 0: the whole period.
+  bool creditAbsences = true;         ///< hours rules of the period: add Problem::credit() to hours worked.
   bool weekends = false;              ///< fair-share of weekends instead of a shift.
   int earlyDays = 0;                  ///< changes: days from --from with a higher weight.
   Cost earlyWeight = kWeightScale;

@@ -37,6 +37,12 @@ std::string amountWithUnit(const std::string& kind, Cost amount) {
   return amountText(amount) + " " + unit;
 }
 
+const char* shortfallUnit(const rules::Breach& b) {
+  if (b.shortfallUnit) return b.shortfallUnit;
+  const char* unit = amountUnit(b.kind);
+  return *unit ? unit : "breaches";
+}
+
 const char* cautionText() {
   return "Caution: this roster was checked only against the rules given in the scenario. The rule presets are "
          "examples, simplified from typical statutory minimums and published health-and-safety guidance. Labour "
@@ -69,6 +75,8 @@ Report buildReport(const model::Problem& p, const model::Roster& roster, std::ve
     PersonSummary& ps = r.byPerson[static_cast<size_t>(s)];
     ps.staff = s;
     ps.shiftsByType.assign(p.shifts.size(), 0);
+    ps.creditMinutes = p.credit(s);
+    for (DayIdx d = 0; d < p.days && !p.absent.empty(); ++d) ps.absentDays += p.absent[p.cell(s, d)] != 0;
     int lastWeekend = -1;
     for (DayIdx d = 0; d < p.days; ++d) {
       const TaskIdx t = roster.at(s, d);
@@ -98,6 +106,7 @@ Report buildReport(const model::Problem& p, const model::Roster& roster, std::ve
     }
   }
   r.breaches = std::move(breaches);
+  r.notes = p.notes;
   return r;
 }
 

@@ -40,7 +40,9 @@ struct PersonSummary {
   StaffIdx staff = 0;
   int hardCount = 0, softCount = 0;
   Cost hard = 0, soft = 0;
-  int paidMinutes = 0;
+  int paidMinutes = 0;              ///< worked: paid minutes of the shifts rostered
+  int creditMinutes = 0;            ///< credited by absences toward hours rules of the period
+  int absentDays = 0;
   int shiftsWorked = 0;
   std::vector<int> shiftsByType;  ///< per shift type
   int weekendsWorked = 0;
@@ -56,6 +58,7 @@ struct Report {
   std::optional<analysis::CapacityReport> capacity;  ///< What the staff can cover at best, set against this roster.
   std::optional<ChangeSummary> changes;  ///< replan only: cells changed against the published roster.
   std::optional<BaselineDiff> baseline;  ///< check --baseline only: against the roster it came from.
+  std::vector<std::string> notes;        ///< What loading changed or assumed (Problem::notes).
 };
 
 Report buildReport(const model::Problem& problem, const model::Roster& roster, std::vector<rules::Breach> breaches,
@@ -78,6 +81,9 @@ std::string pointsText(Cost cost);
 std::string amountText(Cost amount);
 /// The unit a kind's amount is counted in ("h", "days", "people", ...), or "" for a count of breaches.
 const char* amountUnit(const std::string& kind);
+/// The unit of a breach's `shortfall`: its own where the rule set one, else the kind's amount
+/// unit, else "breaches" (kinds counted one per breach).
+const char* shortfallUnit(const rules::Breach& b);
 /// amountText with its unit: "2.5 h", "1 people" reads badly, so counts of one use the singular.
 std::string amountWithUnit(const std::string& kind, Cost amount);
 

@@ -76,7 +76,17 @@ std::string renderText(const Report& r, const model::Problem& p) {
     const auto& person = p.staff[static_cast<size_t>(ps.staff)];
     out << "  " << pad(person.id, 14) << pad(person.name, 24) << pad(std::to_string(ps.hardCount) + " hard", 9)
         << pad(std::to_string(ps.softCount) + " soft", 9) << pad(hoursOf(ps.paidMinutes), 10)
-        << pad(std::to_string(ps.shiftsWorked) + " shifts", 11) << ps.weekendsWorked << " weekends\n";
+        << pad(std::to_string(ps.shiftsWorked) + (ps.shiftsWorked == 1 ? " shift" : " shifts"), 11) << ps.weekendsWorked
+        << (ps.weekendsWorked == 1 ? " weekend" : " weekends");
+    // Hours absences credit toward contract and period hours rules, beside the hours worked.
+    if (ps.creditMinutes > 0 || ps.absentDays > 0)
+      out << "; absent " << ps.absentDays << (ps.absentDays == 1 ? " day" : " days") << ", " << hoursOf(ps.creditMinutes)
+          << " credited, " << hoursOf(ps.paidMinutes + ps.creditMinutes) << " counted";
+    out << "\n";
+  }
+  if (!r.notes.empty()) {
+    out << "\nNOTES\n";
+    for (const auto& note : r.notes) out << "  " << note << "\n";
   }
 
   if (r.changes) out << "\n" << renderChangesText(*r.changes, p);

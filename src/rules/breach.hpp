@@ -21,6 +21,13 @@ struct Breach {
   std::string message;
   TaskIdx task = kOff;                 ///< cover: the (shift, skill) cell
   CoverPart coverPart = CoverPart::None;
+  /// How far the roster is from the rule's bound, in 1/kAmountScale units of `shortfallUnit`
+  /// (hours short of a rest, hours over a limit, days over a run); -1: the amount, in the
+  /// kind's unit. Reported only; the penalty stays amount x weight.
+  Cost shortfall = -1;
+  const char* shortfallUnit = nullptr;
+  /// Rolling-hours breaches: the window with the largest excess (or shortfall), first and last day.
+  DayIdx windowFirst = -1, windowLast = -1;
 };
 
 /// Hard and soft penalty totals, in 1/kCostScale units. Lower is better, hard first.

@@ -55,6 +55,7 @@ void FairShareRule::explain(const model::Problem& problem, const int* counts, lo
   b.hard = spec_.hard;
   b.amount = amount;
   b.penalty = amount * spec_.weight;
+  b.shortfallUnit = spec_.weekends ? "weekends" : "shifts";
   b.message = what + " spread unevenly across " + std::to_string(members_.size()) + " people: mean " + mean +
               ", most " + std::to_string(counts[most]) + " (" + problem.staff[static_cast<size_t>(members_[most])].id +
               "), fewest " + std::to_string(counts[fewest]) + " (" +

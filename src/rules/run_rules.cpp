@@ -7,9 +7,12 @@
 namespace rotaweave::rules {
 namespace {
 
-std::string runText(const RowView& row, DayIdx first, DayIdx last) {
-  const int len = last - first + 1;
-  return std::to_string(len) + (len == 1 ? " day" : " days") + " from " + row.date(first) + " to " + row.date(last);
+/// "1 day", "3 days"; "1 N shift", "2 N shifts".
+std::string countText(int n, const std::string& one) { return std::to_string(n) + " " + one + (n == 1 ? "" : "s"); }
+
+/// Where a run lies: "on 2027-10-05" for one day, "from 2027-10-05 to 2027-10-07" for more.
+std::string spanText(const RowView& row, DayIdx first, DayIdx last) {
+  return first == last ? "on " + row.date(first) : "from " + row.date(first) + " to " + row.date(last);
 }
 
 std::string shiftName(const RowView& row, ShiftIdx s) {
@@ -35,7 +38,7 @@ void MaxConsecutiveDaysRule::score(const RowView& row, AnchorSpan anchors, Tally
     const int len = b - a + 1;
     if (len <= bound) return;
     charge(row, tally, out, (len - bound) * kOne, {a, b}, [&] {
-      return row.personId() + ": works " + runText(row, a, b) + " in a row; at most " + std::to_string(bound) + " allowed";
+      return row.personId() + ": works " + countText(b - a + 1, "day") + " in a row, " + spanText(row, a, b) + "; at most " + std::to_string(bound) + " allowed";
     });
   });
 }
@@ -50,7 +53,7 @@ void MinConsecutiveDaysRule::score(const RowView& row, AnchorSpan anchors, Tally
     const int len = b - a + 1;
     if (len >= bound || atStart || atEnd) return;  // a run cut by the edge of what we know may go on
     charge(row, tally, out, (bound - len) * kOne, {a, b}, [&] {
-      return row.personId() + ": works only " + runText(row, a, b) + " in a row; at least " + std::to_string(bound) + " needed";
+      return row.personId() + ": works only " + countText(b - a + 1, "day") + " in a row, " + spanText(row, a, b) + "; at least " + std::to_string(bound) + " needed";
     });
   });
 }
@@ -66,8 +69,8 @@ void MaxConsecutiveRule::score(const RowView& row, AnchorSpan anchors, Tally& ta
     const int len = b - a + 1;
     if (len <= bound) return;
     charge(row, tally, out, (len - bound) * kOne, {a, b}, [&] {
-      return row.personId() + ": " + std::to_string(len) + " " + shiftName(row, s) + " shifts in a row from " +
-             row.date(a) + " to " + row.date(b) + "; at most " + std::to_string(bound) + " allowed";
+      return row.personId() + ": " + countText(len, shiftName(row, s) + " shift") + " in a row, " + spanText(row, a, b) +
+             "; at most " + std::to_string(bound) + " allowed";
     });
   });
 }
@@ -83,8 +86,8 @@ void MinConsecutiveRule::score(const RowView& row, AnchorSpan anchors, Tally& ta
     const int len = b - a + 1;
     if (len >= bound || atStart || atEnd) return;
     charge(row, tally, out, (bound - len) * kOne, {a, b}, [&] {
-      return row.personId() + ": only " + std::to_string(len) + " " + shiftName(row, s) + " in a row from " +
-             row.date(a) + " to " + row.date(b) + "; at least " + std::to_string(bound) + " needed";
+      return row.personId() + ": only " + countText(len, shiftName(row, s) + " shift") + " in a row, " + spanText(row, a, b) +
+             "; at least " + std::to_string(bound) + " needed";
     });
   });
 }
@@ -99,7 +102,7 @@ void MinConsecutiveOffRule::score(const RowView& row, AnchorSpan anchors, Tally&
     const int len = b - a + 1;
     if (len >= bound || atStart || atEnd) return;
     charge(row, tally, out, (bound - len) * kOne, {a, b}, [&] {
-      return row.personId() + ": only " + runText(row, a, b) + " off in a row; at least " + std::to_string(bound) + " needed";
+      return row.personId() + ": only " + countText(b - a + 1, "day") + " off in a row, " + spanText(row, a, b) + "; at least " + std::to_string(bound) + " needed";
     });
   });
 }

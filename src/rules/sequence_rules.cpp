@@ -42,6 +42,7 @@ void MinRestRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, st
                  row.date(prev) + " and " + row.shiftId(d) + " on " + row.date(d) + "; the rule needs " +
                  boundText(need) + " h";
         });
+      if (rest < need && out) out->back().shortfall = need - rest, out->back().shortfallUnit = "h";
     }
     prev = d;
     havePrev = true;

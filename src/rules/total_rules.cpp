@@ -75,14 +75,14 @@ void scoreWindows(const RowView& row, int w, AnchorSpan anchors, Excess&& excess
       continue;
     }
     const DayIdx groupFirst = a;
-    DayIdx groupLast = a;
+    DayIdx groupLast = a, worst = a;
     int groupExcess = 0, groupSum = 0;
     while (a <= win.lastStart() && breaks(a, sum)) {
       groupLast = a;
-      if (const int e = excess(sum); e > groupExcess) groupExcess = e, groupSum = sum;
+      if (const int e = excess(sum); e > groupExcess) groupExcess = e, groupSum = sum, worst = a;
       advance();
     }
-    chargeGroup(groupFirst, groupLast, groupExcess, groupSum);
+    chargeGroup(groupFirst, groupLast, groupExcess, groupSum, worst);
   }
 }
 
@@ -95,6 +95,26 @@ std::string windowText(const RowView& row, DayIdx first, DayIdx lastStart, int w
 std::string shiftsText(const RowView& row, ShiftIdx s, int n) {
   const std::string what = s == kNoShift ? "shift" : row.problem->shifts[static_cast<size_t>(s)].id + " shift";
   return std::to_string(n) + " " + what + (n == 1 ? "" : "s");
+}
+
+/// Paid minutes of the period plus what absences credit, where the rule counts credit.
+int periodMinutes(const RowView& row, const model::RuleSpec& spec) {
+  return row.totals->paidMinutes + (spec.creditAbsences ? row.problem->credit(row.staff) : 0);
+}
+
+/// "150.0 h in the period", or "120.0 h worked + 30.0 h credited for absences = 150.0 h in the period".
+std::string periodHoursText(const RowView& row, const model::RuleSpec& spec) {
+  const int credit = spec.creditAbsences ? row.problem->credit(row.staff) : 0;
+  if (credit == 0) return hoursText(row.totals->paidMinutes) + " h in the period";
+  return hoursText(row.totals->paidMinutes) + " h worked + " + hoursText(credit) + " h credited for absences = " +
+         hoursText(row.totals->paidMinutes + credit) + " h in the period";
+}
+
+/// Marks a rolling-window breach with its worst window.
+void markWindow(std::vector<Breach>* out, const RowView& row, DayIdx worst, int w) {
+  if (!out) return;
+  out->back().windowFirst = worst;  // may lie in history: a date before the period
+  out->back().windowLast = std::min(worst + w - 1, row.days - 1);
 }
 
 }  // namespace
@@ -114,18 +134,19 @@ void MaxHoursRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, s
   const int bound = spec().minutes;
   const int w = spec().windowDays;
   if (w == 0) {
-    const int total = row.totals->paidMinutes;
+    const int total = periodMinutes(row, spec());
     if (anchors.contains(kPeriodAnchor) && total > bound)
       charge(row, tally, out, total - bound, {0, row.days - 1}, [&] {
-        return row.personId() + ": " + hoursText(total) + " h in the period; at most " + boundText(bound) + " h allowed";
+        return row.personId() + ": " + periodHoursText(row, spec()) + "; at most " + boundText(bound) + " h allowed";
       });
     return;
   }
-  scoreWindows(row, w, anchors, [&](int sum) { return sum - bound; }, [&](DayIdx a, DayIdx b, int excess, int sum) {
+  scoreWindows(row, w, anchors, [&](int sum) { return sum - bound; }, [&](DayIdx a, DayIdx b, int excess, int sum, DayIdx worst) {
     charge(row, tally, out, excess, {a, b + w - 1}, [&] {
       return row.personId() + ": " + hoursText(sum) + " h in " + windowText(row, a, b, w) + "; at most " +
              boundText(bound) + " h allowed";
     });
+    markWindow(out, row, worst, w);
   });
 }
 
@@ -140,19 +161,20 @@ void MinHoursRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, s
   const int bound = spec().minutes;
   const int w = spec().windowDays;
   if (w == 0) {
-    const int total = row.totals->paidMinutes;
+    const int total = periodMinutes(row, spec());
     if (anchors.contains(kPeriodAnchor) && total < bound)
       charge(row, tally, out, bound - total, {0, row.days - 1}, [&] {
-        return row.personId() + ": " + hoursText(total) + " h in the period; at least " + boundText(bound) + " h needed";
+        return row.personId() + ": " + periodHoursText(row, spec()) + "; at least " + boundText(bound) + " h needed";
       });
     return;
   }
   if (row.history + row.days < w) return;  // no full window is known
-  scoreWindows(row, w, anchors, [&](int sum) { return bound - sum; }, [&](DayIdx a, DayIdx b, int shortfall, int sum) {
+  scoreWindows(row, w, anchors, [&](int sum) { return bound - sum; }, [&](DayIdx a, DayIdx b, int shortfall, int sum, DayIdx worst) {
     charge(row, tally, out, shortfall, {a, b + w - 1}, [&] {
       return row.personId() + ": " + hoursText(sum) + " h in " + windowText(row, a, b, w) + "; at least " +
              boundText(bound) + " h needed";
     });
+    markWindow(out, row, worst, w);
   });
 }
 

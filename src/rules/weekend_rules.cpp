@@ -33,7 +33,7 @@ void MaxWeekendsRule::score(const RowView& row, AnchorSpan anchors, Tally& tally
                return days;
              },
              [&] {
-               return row.personId() + ": works on " + std::to_string(worked) + " weekends; at most " +
+               return row.personId() + ": works on " + std::to_string(worked) + (worked == 1 ? " weekend" : " weekends") + "; at most " +
                       std::to_string(spec().count) + " allowed";
              });
 }
@@ -66,6 +66,8 @@ void CompleteWeekendsRule::score(const RowView& row, AnchorSpan anchors, Tally& 
       return row.personId() + ": works " + std::to_string(worked) + " of the " + std::to_string(len) +
              " days of the weekend starting " + row.date(first) + "; a weekend is worked whole or not at all";
     });
+    // How far from complete: the fewer days to change (work the rest or free the worked ones).
+    if (out) out->back().shortfall = std::min(worked, len - worked) * kOne, out->back().shortfallUnit = "days";
   }
 }
 

@@ -47,11 +47,14 @@ RowRefit::Limits RowRefit::limitsFor(const rules::RuleSet& rules, StaffIdx s) co
       case RuleKind::MinConsecutiveDays: lim.minRun = std::max(lim.minRun, r.count); break;
       case RuleKind::MinConsecutiveOff: lim.minOff = std::max(lim.minOff, r.count); break;
       case RuleKind::MaxWeekends: tighter(lim.maxWeekends, r.count, true); break;
+      // Period hours count what absences credit (a constant per person, as in the rules), so
+      // the bounds on minutes worked move by it. A maximum the credit alone reaches leaves no
+      // worked minute; a minimum the credit alone reaches asks for none.
       case RuleKind::MaxHours:
-        if (r.windowDays == 0) tighter(lim.maxMinutes, r.minutes, true);
+        if (r.windowDays == 0) tighter(lim.maxMinutes, std::max(0, r.minutes - (r.creditAbsences ? p_->credit(s) : 0)), true);
         break;
       case RuleKind::MinHours:
-        if (r.windowDays == 0) lim.minMinutes = std::max(lim.minMinutes, r.minutes);
+        if (r.windowDays == 0) lim.minMinutes = std::max(lim.minMinutes, r.minutes - (r.creditAbsences ? p_->credit(s) : 0));
         break;
       case RuleKind::MaxCount:
         if (static_cast<int>(lim.countShift.size()) < kMaxCounts && r.count < 255) {

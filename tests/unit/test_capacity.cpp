@@ -50,9 +50,9 @@ const std::string kContract = kHead + R"(contracts:
   week: {hours: {min: 40}, severity: hard}
   flexible: {hours: {min: 40}}
 staff:
-  - {id: dee, contract: week, skills: [rn], absences: [{from: 2027-03-08, to: 2027-03-10, reason: course}],
+  - {id: dee, contract: week, skills: [rn], absences: [{from: 2027-03-08, to: 2027-03-10, reason: unpaid}],
      fixed: [{date: 2027-03-14, off: true}]}
-  - {id: eve, contract: flexible, skills: [rn], absences: [{from: 2027-03-08, to: 2027-03-13}]}
+  - {id: eve, contract: flexible, skills: [rn], absences: [{from: 2027-03-08, to: 2027-03-13, reason: unpaid}]}
   - {id: fay, contract: week, skills: [rn]}
 demand:
   - {shift: E, skill: rn, min: 1}

@@ -71,8 +71,8 @@ TEST_SUITE("eval") {
                                   "contracts:\n  ft: {hours: {min: 80, max: 100}}\n"
                                   "staff:\n"
                                   "  - {id: a, contract: ft, skills: [rn], history: [N, N, off], requests: [{date: 2027-03-03, off: true}, {date: 2027-03-04, shift: E, weight: 2}, {date: 2027-03-05, not: N}]}\n"
-                                  "  - {id: b, contract: ft, skills: [rn], absences: [{from: 2027-03-08, to: 2027-03-10}], fixed: [{date: 2027-03-01, shift: L}]}\n"
-                                  "  - {id: c, skills: [rn], history: [E]}\n"
+                                  "  - {id: b, contract: ft, skills: [rn], absences: [{from: 2027-03-08, to: 2027-03-10}, {date: 2027-03-15, reason: training}], fixed: [{date: 2027-03-01, shift: L}]}\n"
+                                  "  - {id: c, skills: [rn], history: [E], absences: [{date: 2027-03-16, reason: unpaid}, {date: 2027-03-17, reason: sick}]}\n"
                                   "  - {id: d, skills: [rn]}\n"
                                   "demand:\n  - {shift: E, skill: rn, min: 1, target: 2, max: 2}\n  - {shift: N, skill: rn, min: 1}\n"
                                   "  - {shift: L, skill: rn, min: 1, days: [sat, sun], max: 1}\n"
@@ -87,6 +87,8 @@ TEST_SUITE("eval") {
                                   "    - {kind: days-off-after, shift: N, days: 2}\n"
                                   "    - {kind: min-hours, hours: 16, window_days: 7}\n"
                                   "    - {kind: max-hours, hours: 40, window_days: 7}\n"
+                                  "    - {kind: max-hours, hours: 90, severity: soft, credit_absences: false}\n"
+                                  "    - {kind: min-hours, hours: 60, staff: [c, d]}\n"
                                   "    - {kind: min-count, shift: E, count: 2}\n"
                                   "    - {kind: max-count, count: 15}\n"
                                   "    - {kind: max-weekends, count: 2}\n"
@@ -94,6 +96,8 @@ TEST_SUITE("eval") {
                                   "    - {kind: weekly-rest, hours: 35}\n"
                                   "    - {kind: fair-share, shift: N}\n"
                                   "    - {kind: fair-share, weekends: true, weight: 2}\n");
+    REQUIRE(p.credit(1) > 0);  // b's leave and training count toward the period's hours
+    REQUIRE(p.credit(2) > 0);  // c's sick day does, the unpaid day does not
     for (std::uint64_t seed = 1; seed <= 5; ++seed) checkDeltas(p, 3000, seed);
   }
 

@@ -22,7 +22,7 @@ TEST_SUITE("rules") {
     REQUIRE(b.size() == 1);
     CHECK(b[0].amount == 2 * kAmountScale);
     CHECK(b[0].days.size() == 8);
-    CHECK(b[0].message == "ana: works 8 days from 2027-03-01 to 2027-03-08 in a row; at most 6 allowed");
+    CHECK(b[0].message == "ana: works 8 days in a row, from 2027-03-01 to 2027-03-08; at most 6 allowed");
   }
 
   TEST_CASE("max-consecutive-days: history days count toward the run") {
