@@ -28,7 +28,7 @@ double outputReserve(const model::Problem& problem, double timeLimit) {
 }
 
 Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roster, report::RunInfo run,
-                       const std::filesystem::path& out) {
+                       const std::filesystem::path& out, const io::CalendarHistory* previousCalendars) {
   const model::Problem& problem = ruleSet.problem();
   eval::Evaluator evaluator(ruleSet);
   Outcome outcome;
@@ -37,7 +37,7 @@ Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roste
   analysis::compareWithRoster(capacity, problem, roster, outcome.report.breaches);
   outcome.report.capacity = std::move(capacity);
   if (problem.published) outcome.report.changes = report::computeChanges(problem, roster);
-  io::writeStandardOutputs(out, io::OutputBundle{problem, roster, outcome.report});
+  io::writeStandardOutputs(out, io::OutputBundle{problem, roster, outcome.report, previousCalendars});
   outcome.exitCode = outcome.report.hardCount > 0 ? 1 : 0;
   return outcome;
 }

@@ -17,8 +17,9 @@ void refuseToOverwrite(const std::filesystem::path& input, const std::filesystem
 Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::Roster>& seeds, const SolveRequest& request,
                        const char* command);
 
+/// `previousCalendars` (may be null): see io::OutputBundle.
 Outcome reportAndWrite(const rules::RuleSet& rules, const model::Roster& roster, report::RunInfo run,
-                       const std::filesystem::path& out);
+                       const std::filesystem::path& out, const io::CalendarHistory* previousCalendars = nullptr);
 
 /// Seconds the outputs of a run on `problem` are allowed for: taken from the time limit, so
 /// that the whole run, loading to the last file, keeps it. Grows with the roster's size,

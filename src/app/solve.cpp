@@ -26,7 +26,7 @@ Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::R
   printer.finish(result);
   report::RunInfo run{command, result.seed, result.islands, result.threads, result.generations,
                       result.seconds, result.stopReason, result.history, result.lowerBound};
-  return reportAndWrite(ruleSet, result.best, std::move(run), request.out);
+  return reportAndWrite(ruleSet, result.best, std::move(run), request.out, request.previousCalendars.get());
 }
 
 Outcome solve(const SolveRequest& request) {
