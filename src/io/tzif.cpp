@@ -110,15 +110,20 @@ class TzString {
   std::int32_t time() {
     int sign = 1;
     if (peek('+') || peek('-')) sign = s_[i_++] == '-' ? -1 : 1;
-    std::int32_t v = number() * 3600;
-    if (peek(':')) ++i_, v += number() * 60;
-    if (peek(':')) ++i_, v += number();
-    return sign * v;
+    const int h = number();
+    int m = 0, sec = 0;
+    if (peek(':')) ++i_, m = number();
+    if (peek(':')) ++i_, sec = number();
+    if (h > 167 || m > 59 || sec > 59) fail();  // RFC 8536 section 3.3.1: hours up to 167
+    return sign * (h * 3600 + m * 60 + sec);
   }
   int number() {
     if (i_ >= s_.size() || !std::isdigit(static_cast<unsigned char>(s_[i_]))) fail();
     int v = 0;
-    while (i_ < s_.size() && std::isdigit(static_cast<unsigned char>(s_[i_]))) v = v * 10 + (s_[i_++] - '0');
+    while (i_ < s_.size() && std::isdigit(static_cast<unsigned char>(s_[i_]))) {
+      v = v * 10 + (s_[i_++] - '0');
+      if (v > 9999) fail();
+    }
     return v;
   }
   bool startsOffset() const { return i_ < s_.size() && (std::isdigit(static_cast<unsigned char>(s_[i_])) || s_[i_] == '+' || s_[i_] == '-'); }
@@ -145,6 +150,9 @@ TimeZone TimeZone::parse(std::string name, std::string_view bytes) {
     h = readHeader(in);
     timeWidth = 8;
   }
+  // Counts beyond the bytes left are a damaged file: refuse before allocating for them.
+  if (static_cast<std::uint64_t>(h.timecnt) * static_cast<std::uint64_t>(timeWidth + 1) > in.rest().size())
+    throw std::invalid_argument("TZif data ends early");
   z.times_.resize(static_cast<size_t>(h.timecnt));
   for (auto& t : z.times_) t = in.get(timeWidth);
   z.typeIndex_.resize(static_cast<size_t>(h.timecnt));
@@ -282,7 +290,7 @@ std::vector<ZoneTransition> TimeZone::transitions(std::int64_t from, std::int64_
   }
   if (hasFooter_ && hasDst_) {
     const std::int64_t last = times_.empty() ? std::numeric_limits<std::int64_t>::min() : times_.back();
-    for (int year = yearOf(std::max(from, last)) - 1; year <= yearOf(to) + 1; ++year)
+    for (int year = yearOf(std::max(from, std::min(last, to))) - 1; year <= yearOf(to) + 1; ++year)
       for (const ZoneTransition& t : footerTransitions(year))
         if (t.at > last && t.at >= from && t.at < to) out.push_back(t);
   }

@@ -2,6 +2,9 @@
 #include <doctest/doctest.h>
 
 #include <algorithm>
+#include <fstream>
+#include <iterator>
+#include <random>
 
 #include "fixtures.hpp"
 #include "io/calendar_revision.hpp"
@@ -126,6 +129,33 @@ TEST_SUITE("io") {
     CHECK(io::plausibleZoneName("America/Argentina/Buenos_Aires"));
     CHECK_FALSE(io::loadTimeZone("Europe/Berlni"));
     CHECK(io::loadTimeZone("UTC"));
+  }
+
+  TEST_CASE("TZif: damaged copies of a real file are refused, never misread into a crash") {
+    std::ifstream f(io::zoneInfoDir() + "/Europe/Berlin", std::ios::binary);
+    REQUIRE(f);
+    const std::string good((std::istreambuf_iterator<char>(f)), std::istreambuf_iterator<char>());
+    std::mt19937 rng(23);
+    int refused = 0;
+    for (int round = 0; round < 3000; ++round) {
+      std::string bad = good;
+      const int edits = 1 + static_cast<int>(rng() % 4);
+      for (int e = 0; e < edits; ++e) {
+        const size_t at = rng() % bad.size();
+        if (rng() % 4 == 0) bad.resize(at);
+        else bad[at] = static_cast<char>(rng());
+        if (bad.empty()) break;
+      }
+      try {
+        const io::TimeZone z = io::TimeZone::parse("x", bad);
+        (void)z.typeAt(utc(2027, 10, 31, 1));
+        (void)z.transitions(utc(2027, 1, 1, 0), utc(2028, 1, 1, 0));
+        (void)z.toUtc(io::civilSeconds(2027, 10, 31, 9000));
+      } catch (const std::invalid_argument&) {
+        ++refused;
+      }
+    }
+    CHECK(refused > 0);
   }
 
   TEST_CASE("VTIMEZONE for an October period in Berlin") {
