@@ -4,7 +4,7 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 packages="cmake make g++ pkg-config libboost-program-options-dev libyaml-cpp-dev libxlsxwriter-dev libminizip-dev libexpat1-dev doctest-dev coinor-libcbc-dev coinor-libclp-dev
-          libreoffice-calc-nogui python3 python3-yaml python3-openpyxl python3-icalendar python3-pulp coinor-cbc"
+          libreoffice-calc-nogui python3 python3-yaml python3-openpyxl python3-icalendar python3-pulp coinor-cbc tzdata"
 # shellcheck disable=SC2086
 if [ "$(id -u)" = 0 ] && ! dpkg -s $packages >/dev/null 2>&1; then
   export DEBIAN_FRONTEND=noninteractive

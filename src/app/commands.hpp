@@ -6,11 +6,16 @@
 #pragma once
 #include <chrono>
 #include <filesystem>
+#include <memory>
 #include <string>
 #include <vector>
 
 #include "report/report.hpp"
 #include "search/solver_options.hpp"
+
+namespace rotaweave::io {
+struct CalendarHistory;
+}
 
 namespace rotaweave::app {
 
@@ -30,6 +35,8 @@ struct SolveRequest {
   search::SolverOptions options;
   /// When the run began: the time limit counts from here, loading and writing included.
   std::chrono::steady_clock::time_point startedAt = std::chrono::steady_clock::now();
+  /// replan: the calendars published with the roster it starts from, read before the search.
+  std::shared_ptr<const io::CalendarHistory> previousCalendars = nullptr;
 };
 Outcome solve(const SolveRequest& request);
 

@@ -33,7 +33,8 @@ double outputReserve(const model::Problem& problem, double timeLimit) {
 }
 
 Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roster, report::RunInfo run,
-                       io::OutputFolder& out, const BaselineInput* baseline) {
+                       io::OutputFolder& out, const BaselineInput* baseline,
+                       const io::CalendarHistory* previousCalendars) {
   const model::Problem& problem = ruleSet.problem();
   eval::Evaluator evaluator(ruleSet);
   Outcome outcome;
@@ -45,7 +46,7 @@ Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roste
   if (baseline)
     outcome.report.baseline = report::compareWithBaseline(problem, baseline->roster, evaluator.explain(baseline->roster), roster,
                                                           outcome.report.breaches, baseline->source);
-  const io::OutputBundle bundle{problem, roster, outcome.report};
+  const io::OutputBundle bundle{problem, roster, outcome.report, previousCalendars};
   out.writeSet([&bundle](const std::filesystem::path& dir) { io::writeStandardOutputs(dir, bundle); });
   outcome.exitCode = outcome.report.hardCount > 0 ? 1 : 0;
   return outcome;

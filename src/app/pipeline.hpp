@@ -30,9 +30,11 @@ struct BaselineInput {
 };
 
 /// Explains `roster`, builds the report (with the comparison against `baseline` when given)
-/// and writes the whole output set into `out` as one.
+/// and writes the whole output set into `out` as one. `previousCalendars` (may be null): see
+/// io::OutputBundle.
 Outcome reportAndWrite(const rules::RuleSet& rules, const model::Roster& roster, report::RunInfo run,
-                       io::OutputFolder& out, const BaselineInput* baseline = nullptr);
+                       io::OutputFolder& out, const BaselineInput* baseline = nullptr,
+                       const io::CalendarHistory* previousCalendars = nullptr);
 
 /// Seconds the outputs of a run on `problem` are allowed for: taken from the time limit, so
 /// that the whole run, loading to the last file, keeps it. Grows with the roster's size,

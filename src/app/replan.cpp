@@ -7,6 +7,7 @@
 
 #include "app/commands.hpp"
 #include "app/pipeline.hpp"
+#include "io/calendar_revision.hpp"
 #include "io/csv.hpp"
 #include "io/control_chars.hpp"
 #include "io/input_error.hpp"
@@ -107,6 +108,20 @@ void applyAbsence(model::Problem& p, const std::string& text, DayIdx first) {
   }
 }
 
+/// The calendars published with the roster: calendars/ beside it, as solve and replan write
+/// them. Read before the search, so a damaged one stops the run before it starts. Without
+/// the folder the published roster's shifts stand for them, at SEQUENCE 0.
+std::shared_ptr<const io::CalendarHistory> publishedCalendars(const std::string& rosterPath, const model::Problem& p) {
+  const std::filesystem::path folder = std::filesystem::path(rosterPath).parent_path() / "calendars";
+  std::error_code ec;
+  if (!std::filesystem::is_directory(folder, ec)) {
+    std::cerr << "note: no calendars/ folder beside " << rosterPath
+              << "; the calendars are written as updates of a first publication of that roster (SEQUENCE 0)\n";
+    return nullptr;
+  }
+  return std::make_shared<const io::CalendarHistory>(io::loadCalendarHistory(folder, p));
+}
+
 }  // namespace
 
 Outcome replan(const ReplanRequest& request) {
@@ -160,7 +175,9 @@ Outcome replan(const ReplanRequest& request) {
       else if (problem.absent[problem.cell(s, d)]) seed.at(s, d) = kOff;
     }
 
-  return searchAndWrite(problem, {seed}, request.solve, "replan", out);
+  SolveRequest solve = request.solve;
+  solve.previousCalendars = publishedCalendars(request.publishedRoster, problem);
+  return searchAndWrite(problem, {seed}, solve, "replan", out);
 }
 
 }  // namespace rotaweave::app

@@ -24,7 +24,7 @@ Outcome searchAndWrite(const model::Problem& problem, const std::vector<model::R
   printer.finish(result);
   report::RunInfo run{command, result.seed, result.islands, result.threads, result.generations,
                       result.seconds, result.stopReason, result.history, result.lowerBound};
-  return reportAndWrite(ruleSet, result.best, std::move(run), out);
+  return reportAndWrite(ruleSet, result.best, std::move(run), out, nullptr, request.previousCalendars.get());
 }
 
 Outcome solve(const SolveRequest& request) {

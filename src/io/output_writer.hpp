@@ -10,11 +10,15 @@
 
 namespace rotaweave::io {
 
+struct CalendarHistory;
+
 /// Everything an output needs; all formats read this one bundle, so they agree.
 struct OutputBundle {
   const model::Problem& problem;
   const model::Roster& roster;
   const report::Report& report;
+  /// The calendars published with the roster a replan started from, where found; else null.
+  const CalendarHistory* previousCalendars = nullptr;
 };
 
 class OutputWriter {

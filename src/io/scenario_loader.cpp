@@ -8,6 +8,7 @@
 
 #include "io/input_limits.hpp"
 #include "io/loader_context.hpp"
+#include "io/tzif.hpp"
 
 namespace rotaweave::io {
 namespace detail {
@@ -433,6 +434,22 @@ void loadHolidays(LoadContext& ctx, const Field& f) {
   }
 }
 
+/// `timezone`: an IANA name the system's zone files know (RFC 8536 TZif, tzdata package).
+void loadTimeZoneKey(LoadContext& ctx, const Field& f) {
+  const std::string name = f.text();
+  std::string why;
+  if (loadTimeZone(name, &why)) {
+    ctx.problem.timezone = name;
+    return;
+  }
+  const std::vector<std::string> known = knownZoneNames();
+  if (known.empty())
+    f.fail("unknown time zone '" + name + "': no zone data in " + zoneInfoDir() +
+           "; install the tzdata package (or set TZDIR to a zoneinfo folder), or leave timezone out for floating times");
+  f.fail("unknown time zone '" + name + "'" + didYouMean(name, known) +
+         "; give an IANA name such as Europe/Berlin, America/New_York or UTC (the names in " + zoneInfoDir() + ")");
+}
+
 }  // namespace
 
 model::Problem loadScenario(const std::string& path) {
@@ -441,10 +458,11 @@ model::Problem loadScenario(const std::string& path) {
   LoadContext ctx{problem, path, {}};
   const Field root(Field::parseFile(path), "", &ctx.scenarioFile);
   if (!root.isMap()) root.fail("a scenario must be a map with keys such as period, shifts, skills, staff");
-  root.allowOnly({"name", "description", "period", "weekend", "holidays", "shifts", "skills", "contracts", "absence_credit",
+  root.allowOnly({"name", "description", "timezone", "period", "weekend", "holidays", "shifts", "skills", "contracts", "absence_credit",
                   "staff", "demand", "rules"});
 
   problem.name = root.has("name") ? root.get("name").text() : path;
+  if (root.has("timezone")) loadTimeZoneKey(ctx, root.get("timezone"));
   loadPeriod(ctx, root.require("period"));
   const std::vector<int> weekend = root.has("weekend") ? loadWeekend(root.get("weekend")) : std::vector<int>{5, 6};
   loadShifts(ctx, root.require("shifts"));

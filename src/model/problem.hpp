@@ -96,6 +96,9 @@ struct Published {
 struct Problem {
   std::string name;
   std::string sourceFile;
+  /// IANA time zone of the shift times (scenario key `timezone`), e.g. "Europe/Berlin"; empty:
+  /// none given, calendars use floating local times.
+  std::string timezone;
 
   // Calendar.
   DateSerial start = 0;

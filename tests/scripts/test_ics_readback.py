@@ -179,7 +179,7 @@ def main():
              for s in ("ben", "eli")}
     expect("escaped names read back", names == {"Ben; Ortiz", "Eli Moss \\ Jr"}, names)
 
-    # UIDs depend on person, date and shift only: the same cell gets the same UID in both runs,
+    # UIDs depend on the scenario's name, person and date only: the same cell gets the same UID in both runs,
     # and checking one roster twice gives identical UID sets.
     a, b = events_by_key(runs[0], list(cells)), events_by_key(runs[1], list(cells))
     common = set(a) & set(b)
