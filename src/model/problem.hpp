@@ -75,6 +75,10 @@ struct DemandCell {
 struct Published {
   std::vector<TaskIdx> cells;  ///< staff * days
   DayIdx from = 0;
+  /// Per period day: days to the nearest gap day (a day from `from` on where someone the
+  /// roster had working is now absent); `days` when there is none. Empty: every day counts as
+  /// near (no distance weight). Built by makePublished; the `changes` rule reads it.
+  std::vector<int> gapDistance;
 };
 
 struct Problem {
@@ -122,6 +126,10 @@ struct Problem {
   ShiftIdx findShift(const std::string& id) const;
   SkillIdx findSkill(const std::string& id) const;
 };
+
+/// The published roster `cells` with re-planning from `from`, its gap distances computed
+/// from the problem's absences (set the absences first).
+Published makePublished(const Problem& p, std::vector<TaskIdx> cells, DayIdx from);
 
 /// Fills tasks, taskOf and the per-date weekend tables from shifts, skills and the calendar.
 void buildDerivedTables(Problem& p, const std::vector<int>& weekendDays);
