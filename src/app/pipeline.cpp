@@ -36,7 +36,7 @@ Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roste
   analysis::CapacityReport capacity = analysis::analyseCapacity(problem);
   analysis::compareWithRoster(capacity, problem, roster, outcome.report.breaches);
   outcome.report.capacity = std::move(capacity);
-  if (problem.published) outcome.report.changes = report::computeChanges(problem, roster);
+  if (problem.published) outcome.report.changes = report::computeChanges(ruleSet, roster);
   io::writeStandardOutputs(out, io::OutputBundle{problem, roster, outcome.report});
   outcome.exitCode = outcome.report.hardCount > 0 ? 1 : 0;
   return outcome;
