@@ -12,6 +12,7 @@ speed. Compare two builds with --binary, or the distance weight on and off with 
 
   scripts/replan_figures.py --binary build/rotaweave                  # as the build runs replan
   scripts/replan_figures.py --binary build/rotaweave --no-distance    # far_weight = weight
+  scripts/replan_figures.py --binary ../main/build/rotaweave --source ../main   # an older build
 """
 import argparse
 import csv
@@ -102,13 +103,14 @@ def main():
     ap.add_argument("--near", type=int, default=2, help="a change more than this many days from every absent day is far")
     ap.add_argument("--no-distance", action="store_true", help="replan without the distance weight (far_weight = weight)")
     ap.add_argument("--work", default=None)
+    ap.add_argument("--source", default=ROOT, help="repository whose samples and presets to use (e.g. an older checkout)")
     ap.add_argument("--only", choices=["clinic-ward", "plant"], help="one sample only")
     a = ap.parse_args()
     work = a.work or tempfile.mkdtemp(prefix="replan-figures-")
     os.makedirs(work, exist_ok=True)
     binary = os.path.abspath(a.binary)
 
-    clinic = os.path.join(ROOT, "samples", "clinic-ward")
+    clinic = os.path.join(a.source, "samples", "clinic-ward")
     rows = []
     if a.only != "plant":
         rows.append(figures(binary, "clinic-ward", os.path.join(clinic, "scenario.yaml"), os.path.join(clinic, "published.csv"),
@@ -116,7 +118,7 @@ def main():
                     a.generations, a.near, work, a.no_distance))
     # The plant has no published roster: solve one first (the same for every build that solves
     # alike; the seed and generation count fix it).
-    plant = os.path.join(ROOT, "samples", "plant", "scenario.yaml")
+    plant = os.path.join(a.source, "samples", "plant", "scenario.yaml")
     plant_pub = os.path.join(work, "plant-published")
     if a.only != "clinic-ward":
         if not os.path.exists(os.path.join(plant_pub, "roster.csv")):  # kept between runs with --work

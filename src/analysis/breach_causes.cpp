@@ -58,6 +58,15 @@ class Candidates {
   std::unique_ptr<eval::Evaluator> evaluator_;
 };
 
+/// "ana", "ana or ben", "ana, ben or cat": any one of a few people.
+std::string anyOf(const std::vector<std::string>& ids, size_t limit = 3) {
+  std::string out;
+  const size_t shown = std::min(ids.size(), limit);
+  for (size_t i = 0; i < shown; ++i) out += (i == 0 ? "" : i + 1 == shown && ids.size() <= limit ? " or " : ", ") + ids[i];
+  if (ids.size() > limit) out += " or " + std::to_string(ids.size() - limit) + " others";
+  return out;
+}
+
 /// The last day of the breach on which the person works, or -1.
 DayIdx workedDay(const model::Roster& roster, const rules::Breach& b) {
   for (auto it = b.days.rbegin(); it != b.days.rend(); ++it)
@@ -157,7 +166,7 @@ std::vector<BreachTag> tagBreaches(const CapacityReport& r, const Problem& p, co
                                    " without breaking a hard rule; the qualified people work elsewhere in this roster"
                              : candidates.line(d, task[i]);
     tag.remedy = idle.empty() ? "move someone qualified from another slot that day, or search longer (--time-limit)"
-                              : "give the slot to " + namesText(idle, 3) + (idle.size() == 1 ? "" : " (any one)") +
+                              : "give the slot to " + anyOf(idle) +
                                     ", or search longer (--time-limit)";
   }
   // 4. Everything else.
@@ -188,7 +197,7 @@ std::vector<BreachTag> tagBreaches(const CapacityReport& r, const Problem& p, co
     const TaskIdx t = d >= 0 ? roster.at(b.staff, d) : kOff;
     const std::string others = t != kOff ? "; " + candidates.line(d, t, b.staff) : "";
     const auto helpers = t != kOff ? candidates.ids(d, t, b.staff) : std::vector<std::string>{};
-    const std::string handOver = helpers.empty() ? "" : "give " + who + "'s " + slotText(p, d, t) + " to " + namesText(helpers, 3) + ", or ";
+    const std::string handOver = helpers.empty() ? "" : "give " + who + "'s " + slotText(p, d, t) + " to " + anyOf(helpers) + ", or ";
     if (b.kind == "absence") {
       tag.cause = who + " works on an absence day that the analysis does not show as short" + others;
       tag.remedy = handOver + "give the shift to someone available, or move " + who + "'s leave";
