@@ -23,24 +23,34 @@ std::string slotWords(const model::Problem& p, TaskIdx t) {
 class Tracer {
  public:
   Tracer(const rules::RuleSet& rules, const model::Roster& roster, ChangeSummary& out)
-      : rules_(rules), p_(rules.problem()), roster_(roster), out_(out), evaluator_(rules) {}
+      : rules_(rules), p_(rules.problem()), roster_(roster), out_(out), evaluator_(rules), cache_(out.cells.size()) {}
 
   void run() {
     const model::Published& published = *p_.published;
-    index_.assign(static_cast<size_t>(p_.staffCount()) * static_cast<size_t>(p_.days), -1);
-    for (size_t i = 0; i < out_.cells.size(); ++i) index_[p_.cell(out_.cells[i].staff, out_.cells[i].day)] = static_cast<int>(i);
+    const size_t cells = static_cast<size_t>(p_.staffCount()) * static_cast<size_t>(p_.days);
+    index_.assign(cells, -1);
+    taken_.assign(cells, 0);
+    std::vector<std::vector<size_t>> byDay(static_cast<size_t>(p_.days));
+    for (size_t i = 0; i < out_.cells.size(); ++i) {
+      index_[p_.cell(out_.cells[i].staff, out_.cells[i].day)] = static_cast<int>(i);
+      byDay[static_cast<size_t>(out_.cells[i].day)].push_back(i);
+    }
+    // Each revert check explains the whole roster: fewer of them on larger rosters.
+    budget_ = static_cast<int>(std::min<size_t>(kMaxRevertChecks, std::max<size_t>(20, 4'000'000 / std::max<size_t>(cells, 1))));
     // Slots: a changed cell that now works t on day d took the slot of someone published to
     // work t that day who no longer does. Those left by an absence are matched first.
     for (DayIdx d = published.from; d < p_.days; ++d)
       for (int pass = 0; pass < 2; ++pass)
-        for (CellChange& c : out_.cells) {
-          if (c.day != d || c.now == kOff || c.tookFrom >= 0) continue;
-          for (StaffIdx s = 0; s < p_.staffCount(); ++s) {
-            const size_t cell = p_.cell(s, d);
-            if (published.cells[cell] != c.now || roster_.at(s, d) == c.now || taken(s, d)) continue;
-            if (pass == 0 && !(p_.absent[cell] && roster_.at(s, d) == kOff)) continue;
-            c.tookFrom = s;
-            takenBy_.push_back(cell);
+        for (const size_t i : byDay[static_cast<size_t>(d)]) {
+          CellChange& c = out_.cells[i];
+          if (c.now == kOff || c.tookFrom >= 0) continue;
+          for (const size_t j : byDay[static_cast<size_t>(d)]) {  // only changed cells can have left a slot
+            const CellChange& left = out_.cells[j];
+            const size_t cell = p_.cell(left.staff, d);
+            if (left.was != c.now || taken_[cell]) continue;
+            if (pass == 0 && !(p_.absent[cell] && left.now == kOff)) continue;
+            c.tookFrom = left.staff;
+            taken_[cell] = 1;
             break;
           }
         }
@@ -48,9 +58,6 @@ class Tracer {
   }
 
  private:
-  bool taken(StaffIdx s, DayIdx d) const {
-    return std::find(takenBy_.begin(), takenBy_.end(), p_.cell(s, d)) != takenBy_.end();
-  }
   const std::string& id(StaffIdx s) const { return p_.staff[static_cast<size_t>(s)].id; }
   const CellChange* changeAt(StaffIdx s, DayIdx d) const {
     const int i = index_[p_.cell(s, d)];
@@ -105,10 +112,10 @@ class Tracer {
   /// "to meet rule 'R'": the rule whose penalty rises most (hard first) if this one cell is
   /// put back as published; "with the other changes" when none rises.
   std::string ruleNeeding(const CellChange& c) {
-    const auto it = std::find_if(cache_.begin(), cache_.end(), [&](const auto& e) { return e.first == &c; });
-    if (it != cache_.end()) return it->second;
+    std::string& cached = cache_[static_cast<size_t>(&c - out_.cells.data())];
+    if (!cached.empty()) return cached;
     std::string text = "with the other changes";
-    if (checks_ < kMaxRevertChecks) {
+    if (checks_ < budget_) {
       ++checks_;
       if (base_.empty()) base_ = totals(roster_);
       model::Roster reverted = roster_;
@@ -128,7 +135,7 @@ class Tracer {
       }
       if (best) text = "to meet rule '" + best->id + "'";
     }
-    cache_.emplace_back(&c, text);
+    cached = text;
     return text;
   }
 
@@ -158,10 +165,11 @@ class Tracer {
   ChangeSummary& out_;
   eval::Evaluator evaluator_;
   std::vector<int> index_;          ///< per cell: its index in out_.cells, or -1
-  std::vector<size_t> takenBy_;     ///< cells whose slot some change took
+  std::vector<std::uint8_t> taken_; ///< per cell: 1 if some change took its published slot
   std::vector<RuleTotal> base_;     ///< per rule totals of the roster itself
-  std::vector<std::pair<const CellChange*, std::string>> cache_;
+  std::vector<std::string> cache_;  ///< per change: what ruleNeeding found, once
   int checks_ = 0;
+  int budget_ = 0;
 };
 
 }  // namespace

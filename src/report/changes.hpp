@@ -41,11 +41,13 @@ bool isChanged(const model::Problem& problem, const model::Roster& roster, Staff
 /// that took nobody's slot, or was left for no absence, is "rebalanced to meet rule 'R'",
 /// where R is the rule whose penalty rises most if that one cell is put back as published,
 /// or "rebalanced with the other changes" when no rule needs that cell alone.
-/// Requires ruleSet.problem().published. Scores at most kMaxRevertChecks reverted rosters.
+/// Requires ruleSet.problem().published. Explains at most kMaxRevertChecks reverted rosters,
+/// fewer on large ones (4,000,000 / cells, at least 20): a count, not a time, so the reasons do
+/// not depend on machine speed.
 ChangeSummary computeChanges(const rules::RuleSet& ruleSet, const model::Roster& roster);
 
-/// Beyond this many changes, the rest without a traced slot are "rebalanced" without naming
-/// a rule (each rule named costs one full explanation of the roster).
+/// Beyond this many checks, the remaining changes without a traced slot are "rebalanced with
+/// the other changes" (each rule named costs one full explanation of the roster).
 inline constexpr int kMaxRevertChecks = 400;
 
 /// "12 cells changed for 5 people from 2027-03-15" (one line, no newline).
