@@ -37,9 +37,9 @@ void checkPublishedFits(const std::string& path, const model::Problem& p) {
     const auto last = model::parseIsoDate(trimCell(header.back()));
     if (first && last && (*first != p.start || *last != p.start + p.days - 1))
       throw InputError(path, rows.front().line, 0,
-                           "the published roster covers " + model::formatIsoDate(*first) + " to " + model::formatIsoDate(*last) +
-                               " but the scenario's period is " + periodText(p) +
-                               "; re-plan with the scenario the roster was published for");
+                       "the published roster covers " + model::formatIsoDate(*first) + " to " +
+                           model::formatIsoDate(*last) + " but the scenario's period is " + periodText(p) +
+                           "; re-plan with the scenario the roster was published for");
   }
   std::vector<std::string> unknown, missing;
   std::set<std::string> listed;
@@ -54,10 +54,12 @@ void checkPublishedFits(const std::string& path, const model::Problem& p) {
   // One or two odd ids are likely typos: readRosterCsv names the line and suggests a spelling.
   if (!unknown.empty() && unknown.size() + missing.size() >= 3)
     throw InputError(path, 0, 0,
-                         "the published roster is for a different staff list: " + std::to_string(unknown.size()) +
-                             " of its people are not in the scenario (" + someIds(unknown) + ")" +
-                             (missing.empty() ? std::string() : " and " + std::to_string(missing.size()) + " of the scenario's staff have no row (" + someIds(missing) + ")") +
-                             "; use the scenario the roster was published for, or add the new staff to both");
+                     "the published roster is for a different staff list: " + std::to_string(unknown.size()) +
+                         " of its people are not in the scenario (" + someIds(unknown) + ")" +
+                         (missing.empty() ? std::string()
+                                          : " and " + std::to_string(missing.size()) +
+                                                " of the scenario's staff have no row (" + someIds(missing) + ")") +
+                         "; use the scenario the roster was published for, or add the new staff to both");
 }
 
 /// Parses STAFF:DATE[..DATE][:REASON] and marks the days from `first` on absent.
@@ -88,7 +90,8 @@ void applyAbsence(model::Problem& p, const std::string& text, DayIdx first) {
   if (*to < *from) bad("the absence ends before it starts");
   if (*from < p.start || *to >= p.start + p.days) wrong("the absence is outside the period " + periodText(p));
   if (*to < p.start + first)
-    wrong("the absence ends before --from " + p.dateText(first) + "; days before --from are kept as published, so there is nothing to re-plan");
+    wrong("the absence ends before --from " + p.dateText(first) +
+          "; days before --from are kept as published, so there is nothing to re-plan");
   if (*from < p.start + first)
     std::cerr << "note: --absence " << text << ": days before --from " << p.dateText(first)
               << " are kept as published; the absence is applied from " << p.dateText(first) << "\n";
@@ -120,8 +123,9 @@ model::Problem loadReplanScenario(const std::string& scenario, const ReplanAddit
   const auto from = model::parseIsoDate(additions.from);
   if (!from) throw InputError("--from " + additions.from, 0, 0, "invalid date; write YYYY-MM-DD");
   if (*from < problem.start || *from >= problem.start + problem.days)
-    throw InputError("--from " + additions.from, 0, 0, "the date is outside the period " + periodText(problem) +
-                                                          "; give the first day to re-plan, inside the period");
+    throw InputError(
+        "--from " + additions.from, 0, 0,
+        "the date is outside the period " + periodText(problem) + "; give the first day to re-plan, inside the period");
   const DayIdx first = *from - problem.start;
   checkPublishedFits(additions.publishedRoster, problem);
   const model::Roster published = readRosterCsv(additions.publishedRoster, problem);
@@ -133,9 +137,9 @@ model::Problem loadReplanScenario(const std::string& scenario, const ReplanAddit
     for (DayIdx d = 0; d < first; ++d) {
       TaskIdx& fixed = problem.fixed[problem.cell(s, d)];
       if (fixed >= 0 && fixed != published.at(s, d))
-        std::cerr << "note: " << problem.staff[static_cast<size_t>(s)].id << " on " << problem.dateText(d) << ": the scenario fixes "
-                  << problem.cellText(fixed, s) << " but the published roster has " << problem.cellText(published.at(s, d), s)
-                  << "; days before --from are kept as published\n";
+        std::cerr << "note: " << problem.staff[static_cast<size_t>(s)].id << " on " << problem.dateText(d)
+                  << ": the scenario fixes " << problem.cellText(fixed, s) << " but the published roster has "
+                  << problem.cellText(published.at(s, d), s) << "; days before --from are kept as published\n";
       fixed = published.at(s, d);
     }
   // After the absences: the gap distances the `changes` rule weighs read them.

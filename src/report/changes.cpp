@@ -9,7 +9,9 @@
 namespace rotaweave::report {
 namespace {
 
-std::string pad(const std::string& s, size_t width) { return s.size() >= width ? s + " " : s + std::string(width - s.size(), ' '); }
+std::string pad(const std::string& s, size_t width) {
+  return s.size() >= width ? s + " " : s + std::string(width - s.size(), ' ');
+}
 
 std::string plural(int n, const char* one, const char* many) { return std::to_string(n) + " " + (n == 1 ? one : many); }
 
@@ -36,7 +38,8 @@ class Tracer {
       byDay[static_cast<size_t>(out_.cells[i].day)].push_back(i);
     }
     // Each revert check explains the whole roster: fewer of them on larger rosters.
-    budget_ = static_cast<int>(std::min<size_t>(kMaxRevertChecks, std::max<size_t>(20, 4'000'000 / std::max<size_t>(cells, 1))));
+    budget_ = static_cast<int>(
+        std::min<size_t>(kMaxRevertChecks, std::max<size_t>(20, 4'000'000 / std::max<size_t>(cells, 1))));
     // Slots: a changed cell that now works t on day d took the slot of someone published to
     // work t that day who no longer does. Those left by an absence are matched first.
     for (DayIdx d = published.from; d < p_.days; ++d)
@@ -76,7 +79,8 @@ class Tracer {
     std::string text = "rebalanced " + ruleNeeding(c);
     if (c.now == kOff)  // who took this slot, if anyone
       for (const CellChange& other : out_.cells)
-        if (other.day == c.day && other.tookFrom == c.staff) text += "; " + id(other.staff) + " takes the " + slotWords(p_, c.was);
+        if (other.day == c.day && other.tookFrom == c.staff)
+          text += "; " + id(other.staff) + " takes the " + slotWords(p_, c.was);
     return text;
   }
 
@@ -85,15 +89,19 @@ class Tracer {
     const StaffIdx x = c.tookFrom;
     const std::string slot = slotWords(p_, c.now);
     const SkillIdx skill = p_.tasks[static_cast<size_t>(c.now)].skill;
-    const std::string noSkill = p_.staff[static_cast<size_t>(c.staff)].holds(skill) ? "" : " without holding " + p_.skills[static_cast<size_t>(skill)];
+    const std::string noSkill = p_.staff[static_cast<size_t>(c.staff)].holds(skill)
+                                    ? ""
+                                    : " without holding " + p_.skills[static_cast<size_t>(skill)];
     if (newlyAbsent(x, c.day)) {
       if (!noSkill.empty()) return "takes " + id(x) + "'s " + slot + noSkill + " (" + id(x) + " is absent)";
       return "covers " + id(x) + "'s absence (" + slot + ")";
     }
     std::string text = "takes " + id(x) + "'s " + slot + noSkill;
     const CellChange* next = changeAt(x, c.day);
-    if (!next || next->now == kOff) return text + "; " + id(x) + " is off now" + (next ? " (" + ruleNeeding(*next) + ")" : "");
-    if (std::find(seen.begin(), seen.end(), x) != seen.end()) return text + "; " + id(x) + " moved to " + slotWords(p_, next->now);
+    if (!next || next->now == kOff)
+      return text + "; " + id(x) + " is off now" + (next ? " (" + ruleNeeding(*next) + ")" : "");
+    if (std::find(seen.begin(), seen.end(), x) != seen.end())
+      return text + "; " + id(x) + " moved to " + slotWords(p_, next->now);
     seen.push_back(x);
     return text + "; " + id(x) + " moved to " + movedTo(*next, depth + 1, seen);
   }
@@ -101,7 +109,8 @@ class Tracer {
   /// What a moved person's new cell does, as the end of "X moved to ...".
   std::string movedTo(const CellChange& c, int depth, const std::vector<StaffIdx>& seen) {
     const std::string slot = slotWords(p_, c.now);
-    if (p_.fixed[p_.cell(c.staff, c.day)] >= 0 && c.now == p_.fixed[p_.cell(c.staff, c.day)]) return slot + ", fixed in the scenario";
+    if (p_.fixed[p_.cell(c.staff, c.day)] >= 0 && c.now == p_.fixed[p_.cell(c.staff, c.day)])
+      return slot + ", fixed in the scenario";
     if (c.tookFrom < 0) return slot + " (" + ruleNeeding(c) + ")";
     if (newlyAbsent(c.tookFrom, c.day)) return "cover " + id(c.tookFrom) + "'s absence (" + slot + ")";
     if (depth >= 3) return "take " + id(c.tookFrom) + "'s " + slot;
@@ -131,7 +140,8 @@ class Tracer {
           if (b.id == r.id && b.hard == r.hard) before = b.penalty;
         const Cost rise = r.penalty - before;
         if (rise <= 0) continue;
-        if (!best || (r.hard && !bestHard) || (r.hard == bestHard && rise > bestRise)) best = &r, bestRise = rise, bestHard = r.hard;
+        if (!best || (r.hard && !bestHard) || (r.hard == bestHard && rise > bestRise))
+          best = &r, bestRise = rise, bestHard = r.hard;
       }
       if (best) text = "to meet rule '" + best->id + "'";
     }
@@ -148,7 +158,8 @@ class Tracer {
   std::vector<RuleTotal> totals(const model::Roster& roster) {
     std::vector<RuleTotal> out;
     for (const rules::Breach& b : evaluator_.explain(roster)) {
-      auto it = std::find_if(out.begin(), out.end(), [&](const RuleTotal& r) { return r.id == b.ruleId && r.hard == b.hard; });
+      auto it = std::find_if(out.begin(), out.end(),
+                             [&](const RuleTotal& r) { return r.id == b.ruleId && r.hard == b.hard; });
       if (it == out.end()) {
         const auto kind = model::kindFromName(b.kind);
         out.push_back({b.ruleId, kind ? *kind : model::RuleKind::Cover, b.hard, 0});
@@ -164,10 +175,10 @@ class Tracer {
   const model::Roster& roster_;
   ChangeSummary& out_;
   eval::Evaluator evaluator_;
-  std::vector<int> index_;          ///< per cell: its index in out_.cells, or -1
-  std::vector<std::uint8_t> taken_; ///< per cell: 1 if some change took its published slot
-  std::vector<RuleTotal> base_;     ///< per rule totals of the roster itself
-  std::vector<std::string> cache_;  ///< per change: what ruleNeeding found, once
+  std::vector<int> index_;           ///< per cell: its index in out_.cells, or -1
+  std::vector<std::uint8_t> taken_;  ///< per cell: 1 if some change took its published slot
+  std::vector<RuleTotal> base_;      ///< per rule totals of the roster itself
+  std::vector<std::string> cache_;   ///< per change: what ruleNeeding found, once
   int checks_ = 0;
   int budget_ = 0;
 };
@@ -199,8 +210,8 @@ ChangeSummary computeChanges(const rules::RuleSet& ruleSet, const model::Roster&
 }
 
 std::string changesLine(const ChangeSummary& changes, const model::Problem& p) {
-  return plural(changes.cellCount(), "cell", "cells") + " changed for " + plural(changes.people, "person", "people") + " from " +
-         p.dateText(changes.from);
+  return plural(changes.cellCount(), "cell", "cells") + " changed for " + plural(changes.people, "person", "people") +
+         " from " + p.dateText(changes.from);
 }
 
 std::string renderChangesText(const ChangeSummary& changes, const model::Problem& p) {

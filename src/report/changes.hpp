@@ -24,9 +24,9 @@ struct CellChange {
 
 /// Every change of a re-plan, in staff order then date order.
 struct ChangeSummary {
-  DayIdx from = 0;                ///< first re-planned day
+  DayIdx from = 0;  ///< first re-planned day
   std::vector<CellChange> cells;
-  int people = 0;                 ///< people with at least one changed cell
+  int people = 0;  ///< people with at least one changed cell
   int cellCount() const { return static_cast<int>(cells.size()); }
 };
 

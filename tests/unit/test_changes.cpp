@@ -26,9 +26,10 @@ std::string publishedCsv(const model::Problem& p, const std::vector<std::vector<
 }
 
 // Three nurses and an assistant over 10 days; ana works E every day, bea L, cal off.
-const std::string kScenario = test::header(10) +
-                              "staff:\n  - {id: ana, skills: [rn]}\n  - {id: bea, skills: [rn]}\n  - {id: cal, skills: [rn]}\n"
-                              "demand:\n  - {shift: E, skill: rn, min: 1}\n  - {shift: L, skill: rn, min: 1}\n";
+const std::string kScenario =
+    test::header(10) +
+    "staff:\n  - {id: ana, skills: [rn]}\n  - {id: bea, skills: [rn]}\n  - {id: cal, skills: [rn]}\n"
+    "demand:\n  - {shift: E, skill: rn, min: 1}\n  - {shift: L, skill: rn, min: 1}\n";
 
 }  // namespace
 
@@ -36,8 +37,8 @@ TEST_SUITE("replan") {
   TEST_CASE("the replan loader builds published, absences, frozen days and the default changes rule") {
     std::string path;
     const auto base = test::loadYaml(kScenario, &path);
-    const std::string pub = publishedCsv(base, {std::vector<std::string>(10, "E"), std::vector<std::string>(10, "L"),
-                                                std::vector<std::string>(10, "")});
+    const std::string pub = publishedCsv(
+        base, {std::vector<std::string>(10, "E"), std::vector<std::string>(10, "L"), std::vector<std::string>(10, "")});
     const model::Problem p = io::loadReplanScenario(path, {pub, "2027-03-03", {"ana:2027-03-05..2027-03-06:sick"}});
     REQUIRE(p.published);
     CHECK(p.published->from == 2);
@@ -66,13 +67,16 @@ TEST_SUITE("replan") {
     const std::string doc((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
     const auto w = [](Cost c) { return std::to_string(c / kWeightScale); };
     CHECK(doc.find("{id: changes, kind: changes, severity: soft, weight: " + w(io::ChangesDefaults::weight) +
-                   ", early_days: " + std::to_string(io::ChangesDefaults::earlyDays) + ", early_weight: " +
-                   w(io::ChangesDefaults::earlyWeight) + ", near_days: " + std::to_string(io::ChangesDefaults::nearDays) +
+                   ", early_days: " + std::to_string(io::ChangesDefaults::earlyDays) +
+                   ", early_weight: " + w(io::ChangesDefaults::earlyWeight) +
+                   ", near_days: " + std::to_string(io::ChangesDefaults::nearDays) +
                    ", far_weight: " + w(io::ChangesDefaults::farWeight) + "}") != std::string::npos);
   }
 
   TEST_CASE("a change costs the highest weight that applies: short notice, far from every absence, or near") {
-    auto p = test::loadYaml(kScenario + "rules:\n  list:\n    - {kind: changes, weight: 2, early_days: 1, early_weight: 10, near_days: 1, far_weight: 6}\n");
+    auto p = test::loadYaml(kScenario +
+                            "rules:\n  list:\n    - {kind: changes, weight: 2, early_days: 1, early_weight: 10, "
+                            "near_days: 1, far_weight: 6}\n");
     std::vector<TaskIdx> cells(static_cast<size_t>(p.staffCount() * p.days), kOff);
     for (DayIdx d = 0; d < p.days; ++d) cells[p.cell(0, d)] = p.task(0, 0);  // ana E every day
     p.absent[p.cell(0, 5)] = 1;
@@ -96,12 +100,13 @@ TEST_SUITE("replan") {
 
   TEST_CASE("reasons trace the chain: who took whose slot, on which day, for which skill") {
     // bea holds hca (first) and rn: with ana sick, bea covers ana's E rn and cal takes bea's E hca.
-    auto p = test::loadYaml("name: chain\nperiod: {start: 2027-03-01, end: 2027-03-02}\n"
-                            "shifts:\n  - {id: E, start: \"07:00\", end: \"15:00\"}\nskills: [rn, hca]\n"
-                            "staff:\n  - {id: ana, skills: [rn]}\n  - {id: bea, skills: [hca, rn]}\n  - {id: cal, skills: [hca]}\n"
-                            "  - {id: dan, skills: [rn]}\n"
-                            "demand:\n  - {shift: E, skill: rn, min: 1}\n  - {shift: E, skill: hca, min: 1}\n"
-                            "rules:\n  list:\n    - {id: dan-one, kind: max-count, count: 1, staff: [dan]}\n");
+    auto p = test::loadYaml(
+        "name: chain\nperiod: {start: 2027-03-01, end: 2027-03-02}\n"
+        "shifts:\n  - {id: E, start: \"07:00\", end: \"15:00\"}\nskills: [rn, hca]\n"
+        "staff:\n  - {id: ana, skills: [rn]}\n  - {id: bea, skills: [hca, rn]}\n  - {id: cal, skills: [hca]}\n"
+        "  - {id: dan, skills: [rn]}\n"
+        "demand:\n  - {shift: E, skill: rn, min: 1}\n  - {shift: E, skill: hca, min: 1}\n"
+        "rules:\n  list:\n    - {id: dan-one, kind: max-count, count: 1, staff: [dan]}\n");
     const auto published = test::rosterFrom(p, {"E E", "E E", ". .", ". E"});
     p.absent[p.cell(0, 0)] = 1;
     p.absenceReason[p.cell(0, 0)] = "sick";
