@@ -25,7 +25,7 @@ std::string slotWords(const model::Problem& p, TaskIdx t) {
 class Tracer {
  public:
   Tracer(const rules::RuleSet& rules, const model::Roster& roster, ChangeSummary& out)
-      : rules_(rules), p_(rules.problem()), roster_(roster), out_(out), evaluator_(rules), cache_(out.cells.size()) {}
+      : p_(rules.problem()), roster_(roster), out_(out), evaluator_(rules), cache_(out.cells.size()) {}
 
   void run() {
     const model::Published& published = *p_.published;
@@ -170,7 +170,6 @@ class Tracer {
     return out;
   }
 
-  const rules::RuleSet& rules_;
   const model::Problem& p_;
   const model::Roster& roster_;
   ChangeSummary& out_;
