@@ -1,9 +1,11 @@
 /// @brief Setting a roster's hard breaches against the capacity analysis: unavoidable or not,
 /// why, and what would remove them.
 #include <algorithm>
+#include <memory>
 #include <string>
 
 #include "analysis/capacity.hpp"
+#include "analysis/fill_candidates.hpp"
 #include "analysis/wording.hpp"
 
 namespace rotaweave::analysis {
@@ -24,17 +26,52 @@ bool isContractMinimum(const Problem& p, const rules::Breach& b) {
 
 bool isCalledInKind(const std::string& kind) { return kind == "absence" || kind == "fixed" || kind == "skill"; }
 
-/// People free for slot (d, t) by the analysis who are off in the roster that day.
-std::vector<std::string> idleFor(const Problem& p, const model::Roster& roster, DayIdx d, TaskIdx t) {
-  std::vector<std::string> ids;
-  const SkillIdx skill = p.tasks[static_cast<size_t>(t)].skill;
-  for (StaffIdx s = 0; s < p.staffCount(); ++s) {
-    const size_t c = p.cell(s, d);
-    if (roster.at(s, d) != kOff || p.absent[c] || !p.staff[static_cast<size_t>(s)].holds(skill)) continue;
-    if (p.fixed[c] >= 0 && p.fixed[c] != t) continue;
-    ids.push_back(p.staff[static_cast<size_t>(s)].id);
+/// True if a rule with this id is marked `legal: true`: advice never suggests relaxing it.
+bool isLegal(const Problem& p, const std::string& ruleId) {
+  return std::any_of(p.rules.begin(), p.rules.end(), [&](const model::RuleSpec& r) { return r.id == ruleId && r.legal; });
+}
+
+/// Fill candidates on demand: the rule set and evaluator are built only when a breach asks.
+class Candidates {
+ public:
+  Candidates(const Problem& p, const model::Roster& roster) : p_(p), roster_(roster) {}
+  std::vector<std::string> ids(DayIdx d, TaskIdx t, StaffIdx except = -1) {
+    if (!evaluator_) {
+      rules_ = std::make_unique<rules::RuleSet>(p_);
+      evaluator_ = std::make_unique<eval::Evaluator>(*rules_);
+    }
+    return fillCandidateIds(*evaluator_, roster_, d, t, except);
   }
-  return ids;
+  /// "ana and ben could have taken it (qualified, not absent, no hard rule broken)" or that
+  /// nobody could.
+  std::string line(DayIdx d, TaskIdx t, StaffIdx except = -1) {
+    const auto who = ids(d, t, except);
+    if (who.empty()) return "nobody off that day could take " + slotText(p_, d, t) + " without breaking a hard rule";
+    return namesText(who, 6) + (who.size() == 1 ? " was" : " were") + " off and could have taken " + slotText(p_, d, t) +
+           " (qualified, not absent, no hard rule broken)";
+  }
+
+ private:
+  const Problem& p_;
+  const model::Roster& roster_;
+  std::unique_ptr<rules::RuleSet> rules_;
+  std::unique_ptr<eval::Evaluator> evaluator_;
+};
+
+/// "ana", "ana or ben", "ana, ben or cat": any one of a few people.
+std::string anyOf(const std::vector<std::string>& ids, size_t limit = 3) {
+  std::string out;
+  const size_t shown = std::min(ids.size(), limit);
+  for (size_t i = 0; i < shown; ++i) out += (i == 0 ? "" : i + 1 == shown && ids.size() <= limit ? " or " : ", ") + ids[i];
+  if (ids.size() > limit) out += " or " + std::to_string(ids.size() - limit) + " others";
+  return out;
+}
+
+/// The last day of the breach on which the person works, or -1.
+DayIdx workedDay(const model::Roster& roster, const rules::Breach& b) {
+  for (auto it = b.days.rbegin(); it != b.days.rend(); ++it)
+    if (roster.at(b.staff, *it) != kOff) return *it;
+  return -1;
 }
 
 std::string outsideCover(const Problem& p, DayIdx d, TaskIdx t, int persons) {
@@ -52,6 +89,7 @@ std::vector<BreachTag> tagBreaches(const CapacityReport& r, const Problem& p, co
                                    const std::vector<rules::Breach>& breaches) {
   std::vector<BreachTag> tags(breaches.size());
   for (size_t i = 0; i < breaches.size(); ++i) tags[i].breach = i;
+  Candidates candidates(p, roster);
   std::vector<int> budget = r.hardGap;  // unavoidable units per day still to explain
   budget.resize(static_cast<size_t>(p.days), 0);
   std::vector<TaskIdx> task(breaches.size(), kOff);
@@ -123,10 +161,13 @@ std::vector<BreachTag> tagBreaches(const CapacityReport& r, const Problem& p, co
       tag.remedy = outsideCover(p, d, task[i], proven) + (day ? leaveRemedy(wording::absentIds(p, day->missing), d, p) : "");
       continue;
     }
-    const auto idle = idleFor(p, roster, d, task[i]);
-    tag.cause = idle.empty() ? "enough people could work this slot, but this roster uses them elsewhere"
-                             : "people who could work this slot are off that day: " + namesText(idle, 5);
-    tag.remedy = "give the slot to someone available (check rest and consecutive-day rules), or search longer (--time-limit)";
+    const auto idle = candidates.ids(d, task[i]);
+    tag.cause = idle.empty() ? "nobody off that day could take " + slotText(p, d, task[i]) +
+                                   " without breaking a hard rule; the qualified people work elsewhere in this roster"
+                             : candidates.line(d, task[i]);
+    tag.remedy = idle.empty() ? "move someone qualified from another slot that day, or search longer (--time-limit)"
+                              : "give the slot to " + anyOf(idle) +
+                                    ", or search longer (--time-limit)";
   }
   // 4. Everything else.
   for (size_t i = 0; i < breaches.size(); ++i) {
@@ -151,18 +192,30 @@ std::vector<BreachTag> tagBreaches(const CapacityReport& r, const Problem& p, co
       }
       continue;
     }
+    // Who could have taken the breaching person's shift on the breach's last worked day.
+    const DayIdx d = b.staff >= 0 ? workedDay(roster, b) : -1;
+    const TaskIdx t = d >= 0 ? roster.at(b.staff, d) : kOff;
+    const std::string others = t != kOff ? "; " + candidates.line(d, t, b.staff) : "";
+    const auto helpers = t != kOff ? candidates.ids(d, t, b.staff) : std::vector<std::string>{};
+    const std::string handOver = helpers.empty() ? "" : "give " + who + "'s " + slotText(p, d, t) + " to " + anyOf(helpers) + ", or ";
     if (b.kind == "absence") {
-      tag.cause = who + " works on an absence day that the analysis does not show as short";
-      tag.remedy = "give the shift to someone available, or move " + who + "'s leave";
+      tag.cause = who + " works on an absence day that the analysis does not show as short" + others;
+      tag.remedy = handOver + "give the shift to someone available, or move " + who + "'s leave";
     } else if (b.kind == "fixed") {
-      tag.cause = who + "'s pre-assigned cell is not kept";
+      tag.cause = who + "'s pre-assigned cell is not kept" + others;
       tag.remedy = "restore the fixed cell, or remove the fixed entry for " + who;
     } else if (b.kind == "skill") {
-      tag.cause = who + " fills a role without holding its skill";
-      tag.remedy = "give the role to someone holding the skill";
+      tag.cause = who + " fills a role without holding its skill" + others;
+      tag.remedy = handOver + "give the role to someone holding the skill";
+    } else if (isLegal(p, b.ruleId)) {
+      // A legal minimum is never to be weakened: only staffing remedies.
+      tag.cause = "not implied by the capacity analysis" + others;
+      tag.remedy = handOver + "change the roster on these dates, add staff from outside (bank, agency or another team)" +
+                   (t != kOff ? " for " + slotText(p, d, t) : "") + ", or search longer (--time-limit); rule '" + b.ruleId +
+                   "' is marked legal, so keep it as it is";
     } else {
-      tag.cause = "not implied by the capacity analysis";
-      tag.remedy = "change the roster on these dates, search longer (--time-limit), or relax rule '" + b.ruleId + "'" +
+      tag.cause = "not implied by the capacity analysis" + others;
+      tag.remedy = handOver + "change the roster on these dates, search longer (--time-limit), or relax rule '" + b.ruleId + "'" +
                    (who.empty() ? "" : " for " + who + " (narrow it with staff: [...] or make it soft)");
     }
   }

@@ -42,7 +42,7 @@ Outcome reportAndWrite(const rules::RuleSet& ruleSet, const model::Roster& roste
   analysis::CapacityReport capacity = analysis::analyseCapacity(problem);
   analysis::compareWithRoster(capacity, problem, roster, outcome.report.breaches);
   outcome.report.capacity = std::move(capacity);
-  if (problem.published) outcome.report.changes = report::computeChanges(problem, roster);
+  if (problem.published) outcome.report.changes = report::computeChanges(ruleSet, roster);
   if (baseline)
     outcome.report.baseline = report::compareWithBaseline(problem, baseline->roster, evaluator.explain(baseline->roster), roster,
                                                           outcome.report.breaches, baseline->source);

@@ -1,4 +1,5 @@
 /// @brief Options for each command; solver options come from the shared parameter table.
+#include "io/replan_loader.hpp"
 #include "cli/options.hpp"
 
 #include <boost/program_options.hpp>
@@ -81,6 +82,7 @@ std::string helpText() {
 }  // namespace
 
 std::string optionsMarkdown() {
+  using D = io::ChangesDefaults;  // replan's default stability weights, one source
   std::ostringstream out;
   out << "# Solver options\n\n"
       << "Generated from the parameter table in `src/search/solver_options.cpp` by `rotaweave --options-markdown`;\n"
@@ -96,7 +98,14 @@ std::string optionsMarkdown() {
       << "| `--baseline FILE` | the roster `--roster` was edited from, read the same way; report.txt (BASELINE), report.json "
          "(`baseline`) and the workbook's Baseline sheet list the changed cells and the breaches that are new, gone or changed in "
          "amount |\n"
-      << "| `--out DIR` | output folder (default `out`) |\n";
+      << "| `--out DIR` | output folder (default `out`) |\n"
+
+      << "\n`replan` takes the solve options above. What a change to the published roster costs is not an option but\n"
+      << "the `changes` rule's weights: without a `changes` rule in the scenario, replan adds\n"
+      << "`{id: changes, kind: changes, severity: soft, weight: " << D::weight / kWeightScale << ", early_days: " << D::earlyDays
+      << ", early_weight: " << D::earlyWeight / kWeightScale << ", near_days: " << D::nearDays
+      << ", far_weight: " << D::farWeight / kWeightScale << "}`\n"
+      << "(see [rules/changes.md](rules/changes.md)); list your own to change them.\n";
   return out.str();
 }
 

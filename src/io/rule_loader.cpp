@@ -65,6 +65,7 @@ void loadParam(LoadContext& ctx, const model::ParamInfo& info, const Field& f, R
       const int v = f.integer(static_cast<int>(info.min), static_cast<int>(info.max));
       if (key == "window_days") spec.windowDays = v;
       else if (key == "early_days") spec.earlyDays = v;
+      else if (key == "near_days") spec.nearDays = v;
       else spec.count = v;
       break;
     }
@@ -72,7 +73,7 @@ void loadParam(LoadContext& ctx, const model::ParamInfo& info, const Field& f, R
       spec.minutes = f.minutesFromHours(info.min, info.max);
       break;
     case ParamType::Weight:
-      spec.earlyWeight = f.weight();
+      (key == "far_weight" ? spec.farWeight : spec.earlyWeight) = f.weight();
       break;
     case ParamType::Bool:
       if (key == "credit_absences") spec.creditAbsences = f.boolean();
@@ -91,7 +92,7 @@ RuleSpec loadRule(LoadContext& ctx, const Field& entry) {
                    "; see docs/rules/ for the catalogue");
   const model::KindInfo& info = model::kindInfo(*kind);
 
-  std::vector<std::string> allowed{"kind", "id", "severity", "weight", "staff", "contracts", "skills"};
+  std::vector<std::string> allowed{"kind", "id", "severity", "weight", "staff", "contracts", "skills", "legal"};
   for (const auto& param : info.params) allowed.push_back(param.key);
   entry.allowOnly(allowed);
 
@@ -106,6 +107,9 @@ RuleSpec loadRule(LoadContext& ctx, const Field& entry) {
     spec.hard = sev == "hard";
   }
   if (entry.has("weight")) spec.weight = entry.get("weight").weight();
+  // `legal: true` marks a legal minimum (daily rest, weekly rest, ...): advice after a breach
+  // never suggests relaxing it.
+  if (entry.has("legal")) spec.legal = entry.get("legal").boolean();
   spec.inScope = loadScope(ctx, entry);
   for (const auto& param : info.params) {
     if (entry.has(param.key))

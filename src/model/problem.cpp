@@ -2,6 +2,7 @@
 #include "model/problem.hpp"
 
 #include <algorithm>
+#include <cstdlib>
 
 namespace rotaweave::model {
 
@@ -97,6 +98,22 @@ void computeAbsenceCredit(Problem& p) {
       p.creditMinutes[static_cast<size_t>(s)] += minutes;
     }
   }
+}
+
+Published makePublished(const Problem& p, std::vector<TaskIdx> cells, DayIdx from) {
+  Published out{std::move(cells), from, {}};
+  const int far = p.days;
+  out.gapDistance.assign(static_cast<size_t>(p.days), far);
+  std::vector<DayIdx> gaps;
+  for (DayIdx d = from; d < p.days; ++d)
+    for (StaffIdx s = 0; s < p.staffCount(); ++s)
+      if (p.absent[p.cell(s, d)] && out.cells[p.cell(s, d)] != kOff) {
+        gaps.push_back(d);
+        break;
+      }
+  for (DayIdx d = 0; d < p.days; ++d)
+    for (const DayIdx g : gaps) out.gapDistance[static_cast<size_t>(d)] = std::min(out.gapDistance[static_cast<size_t>(d)], std::abs(d - g));
+  return out;
 }
 
 void buildDerivedTables(Problem& p, const std::vector<int>& weekendDays) {

@@ -91,6 +91,10 @@ std::vector<AbsenceCredit> defaultAbsenceCredit();
 struct Published {
   std::vector<TaskIdx> cells;  ///< staff * days
   DayIdx from = 0;
+  /// Per period day: days to the nearest gap day (a day from `from` on where someone the
+  /// roster had working is now absent); `days` when there is none. Empty: every day counts as
+  /// near (no distance weight). Built by makePublished; the `changes` rule reads it.
+  std::vector<int> gapDistance;
 };
 
 struct Problem {
@@ -162,6 +166,9 @@ bool creditedDay(const Problem& p, DayIdx d);
 /// Fills creditByDay and creditMinutes from absent, absenceReason, absenceCredit and each
 /// person's dailyMinutes. Cheap (one pass over the cells); call after absences change.
 void computeAbsenceCredit(Problem& p);
+/// The published roster `cells` with re-planning from `from`, its gap distances computed
+/// from the problem's absences (set the absences first).
+Published makePublished(const Problem& p, std::vector<TaskIdx> cells, DayIdx from);
 
 /// Fills tasks, taskOf and the per-date weekend tables from shifts, skills and the calendar.
 void buildDerivedTables(Problem& p, const std::vector<int>& weekendDays);

@@ -75,7 +75,9 @@ const std::vector<KindInfo>& ruleCatalogue() {
        "even spread of a shift or of weekends across a group", "", R::Evaluated},
       {RuleKind::Changes, "changes", true, false,
        {{"early_days", P::Count, false, 0, 366, "days from the re-plan date with the early weight"},
-        {"early_weight", P::Weight, false, 0, kBig, "weight of a change within early_days"}},
+        {"early_weight", P::Weight, false, 0, kBig, "weight of a change within early_days"},
+        {"near_days", P::Count, false, 0, 366, "days from an absence that count as near it (default 2)"},
+        {"far_weight", P::Weight, false, 0, kBig, "weight of a change farther than near_days from every absence"}},
        "cells changed against the published roster (re-planning)", "", R::CellCost},
   };
   return kCatalogue;

@@ -61,6 +61,10 @@ const std::vector<KindInfo>& ruleCatalogue();
 const KindInfo& kindInfo(RuleKind kind);
 std::optional<RuleKind> kindFromName(std::string_view name);
 
+/// `changes`: a day within this many days of a gap day (someone rostered is now absent)
+/// counts as near the absence unless the rule sets `near_days`.
+inline constexpr int kDefaultNearDays = 2;
+
 /// One rule after loading: validated, indices resolved, amounts in internal units.
 struct RuleSpec {
   std::string id;
@@ -77,6 +81,11 @@ struct RuleSpec {
   bool weekends = false;              ///< fair-share of weekends instead of a shift.
   int earlyDays = 0;                  ///< changes: days from --from with a higher weight.
   Cost earlyWeight = kWeightScale;
+  int nearDays = kDefaultNearDays;    ///< changes: a day this close to a gap day is near.
+  Cost farWeight = -1;                ///< changes: weight of a change on a far day; -1: `weight`.
+  /// Marked `legal: true` in the scenario or a preset: a legal minimum. Advice never suggests
+  /// relaxing it; it suggests staffing remedies instead.
+  bool legal = false;
   std::string origin;                 ///< "file:line" where the rule was declared.
 };
 

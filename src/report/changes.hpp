@@ -6,6 +6,7 @@
 
 #include "model/problem.hpp"
 #include "model/roster.hpp"
+#include "rules/rule_set.hpp"
 
 namespace rotaweave::report {
 
@@ -15,14 +16,17 @@ struct CellChange {
   DayIdx day = 0;
   TaskIdx was = kOff;  ///< the published task
   TaskIdx now = kOff;  ///< the task in the new roster
-  std::string reason;  ///< "absent (sick)", "covers ana's absence", "rebalanced", ...
+  std::string reason;  ///< "absent (sick)", "covers ana's absence (L rn)", "rebalanced to meet rule 'daily-rest'", ...
+  /// Whose slot this cell took: the person published to work `now` that day who no longer
+  /// does (-1 when nobody left that slot).
+  StaffIdx tookFrom = -1;
 };
 
 /// Every change of a re-plan, in staff order then date order.
 struct ChangeSummary {
-  DayIdx from = 0;                ///< first re-planned day
+  DayIdx from = 0;  ///< first re-planned day
   std::vector<CellChange> cells;
-  int people = 0;                 ///< people with at least one changed cell
+  int people = 0;  ///< people with at least one changed cell
   int cellCount() const { return static_cast<int>(cells.size()); }
 };
 
@@ -30,9 +34,21 @@ struct ChangeSummary {
 /// published roster. False when the problem has no published roster.
 bool isChanged(const model::Problem& problem, const model::Roster& roster, StaffIdx staff, DayIdx day);
 
-/// The changes of `roster` against `problem.published` with their reasons.
-/// Requires problem.published.
-ChangeSummary computeChanges(const model::Problem& problem, const model::Roster& roster);
+/// The changes of `roster` against `problem.published` with their reasons, traced cell by
+/// cell: a changed cell that now works task t on day d took the slot of someone published to
+/// work t that day who no longer does (absent: "covers X's absence (L rn)"; moved: "takes X's
+/// L rn; X moved to ..." along the chain; now off: "takes X's L rn; X is off now"). A cell
+/// that took nobody's slot, or was left for no absence, is "rebalanced to meet rule 'R'",
+/// where R is the rule whose penalty rises most if that one cell is put back as published,
+/// or "rebalanced with the other changes" when no rule needs that cell alone.
+/// Requires ruleSet.problem().published. Explains at most kMaxRevertChecks reverted rosters,
+/// fewer on large ones (4,000,000 / cells, at least 20): a count, not a time, so the reasons do
+/// not depend on machine speed.
+ChangeSummary computeChanges(const rules::RuleSet& ruleSet, const model::Roster& roster);
+
+/// Beyond this many checks, the remaining changes without a traced slot are "rebalanced with
+/// the other changes" (each rule named costs one full explanation of the roster).
+inline constexpr int kMaxRevertChecks = 400;
 
 /// "12 cells changed for 5 people from 2027-03-15" (one line, no newline).
 std::string changesLine(const ChangeSummary& changes, const model::Problem& problem);

@@ -76,14 +76,20 @@ void ChangesRule::score(const RowView& row, AnchorSpan anchors, Tally& tally, st
   const auto& p = *row.problem;
   if (!p.published) return;
   const auto& published = *p.published;
+  const auto& spec = this->spec();
+  const Cost farWeight = spec.farWeight < 0 ? spec.weight : spec.farWeight;
   for (DayIdx d = std::max(published.from, firstDay(anchors)); d <= lastDay(row, anchors); ++d) {
     const TaskIdx was = published.cells[p.cell(row.staff, d)];
     if (was == row.tasks[d]) continue;
-    const bool early = d < published.from + spec().earlyDays;
+    // The highest weight that applies: short notice, then distance from every absence.
+    const bool early = d < published.from + spec.earlyDays;
+    const bool far = !published.gapDistance.empty() && published.gapDistance[static_cast<size_t>(d)] > spec.nearDays;
+    const Cost weight = std::max(early ? spec.earlyWeight : Cost{0}, far ? farWeight : spec.weight);
     charge(row, tally, out, kOne, {d, d}, [&] {
       return row.personId() + ": " + row.date(d) + " changed from " + row.problem->cellText(was, row.staff) + " to " +
-             row.problem->cellText(row.tasks[d], row.staff) + (early ? " at short notice" : "");
-    }, early ? spec().earlyWeight : spec().weight);
+             row.problem->cellText(row.tasks[d], row.staff) + (early ? " at short notice" : "") +
+             (far ? std::string(early ? "," : "") + " far from any absence" : "");
+    }, weight);
   }
 }
 

@@ -200,10 +200,10 @@ def main():
            f"{len(rows)} rows, {len(diff)} changed; missing {sorted(diff - listed)[:3]}, extra {sorted(listed - diff)[:3]}")
     reasons = {(r["person"], r["date"]): r["reason"] for r in rows}
     absent_ok = all(reasons.get((sick, d)) == "absent (sick)" for d in sick_worked)
-    covers = [r for r in rows if r["reason"] == f"covers {sick}'s absence"]
+    covers = [r for r in rows if r["reason"].startswith(f"covers {sick}'s absence (")]
     covers_ok = all(r["date"] in sick_worked and shift_of(r["now"]) in {shift_of(published[sick][r["date"]])} for r in covers)
     result(absent_ok and covers and covers_ok and all(r["reason"] for r in rows),
-           "reasons: 'absent (sick)', 'covers X's absence' on the shifts left open, else 'rebalanced'",
+           "reasons: 'absent (sick)', 'covers X's absence (S k)' on the shifts left open, else a chain or 'rebalanced ...'",
            [(r["person"], r["date"], r["was"], r["now"], r["reason"]) for r in rows][:8])
     people = len({r["person"] for r in rows})
     summary = report.get("changes", {})

@@ -106,14 +106,17 @@ TEST_SUITE("eval") {
                             "staff:\n  - {id: a, skills: [rn]}\n  - {id: b, skills: [rn]}\n  - {id: c, skills: [rn]}\n"
                             "demand:\n  - {shift: E, skill: rn, min: 1}\n  - {shift: N, skill: rn, min: 1}\n"
                             "rules:\n  list:\n"
-                            "    - {kind: changes, early_days: 3, early_weight: 5}\n"
+                            "    - {kind: changes, early_days: 3, early_weight: 5, near_days: 2, far_weight: 4}\n"
                             "    - {kind: max-consecutive-days, days: 5}\n");
-    // A published roster as re-planning sets one: every cell some task, changes charged from day 2.
-    model::Published published;
+    // A published roster as re-planning sets one: every cell some task, changes charged from
+    // day 2; c is absent on day 6, so days 4-8 are near the absence and the rest far.
+    std::vector<TaskIdx> cells;
     search::Rng rng(11);
-    for (int i = 0; i < p.staffCount() * p.days; ++i) published.cells.push_back(static_cast<TaskIdx>(rng.below(p.taskCount())));
-    published.from = 2;
-    p.published = published;
+    for (int i = 0; i < p.staffCount() * p.days; ++i) cells.push_back(static_cast<TaskIdx>(1 + rng.below(p.taskCount() - 1)));
+    p.absent[p.cell(2, 6)] = 1;
+    p.published = model::makePublished(p, cells, 2);
+    CHECK(p.published->gapDistance[6] == 0);
+    CHECK(p.published->gapDistance[9] == 3);
     for (std::uint64_t seed = 1; seed <= 3; ++seed) checkDeltas(p, 2000, seed);
   }
 
