@@ -408,7 +408,8 @@ void loadDemand(LoadContext& ctx, const Field& f) {
 void loadAbsenceCredit(LoadContext& ctx, const Field& f) {
   if (!f.isMap()) f.fail("absence_credit is a map of reason to daily, hours or 0, e.g. {leave: daily, training: 6, unpaid: 0}");
   auto& credits = ctx.problem.absenceCredit;
-  for (const auto& [reason, value] : f.entries()) {
+  for (const auto& [key, value] : f.entries()) {
+    const std::string& reason = key;  // a plain name: clang 14 lambdas cannot capture structured bindings
     model::AbsenceCredit c;
     c.reason = reason;
     c.origin = value.file() + ":" + std::to_string(value.node().Mark().line + 1);
